@@ -1,0 +1,9 @@
+// Astro configuration for the Strobe Atlas catalogue site.
+// The site only presents results records written by the catalogue layer (src/catalogue).
+import { defineConfig } from 'astro/config';
+
+export default defineConfig({
+  site: 'http://127.0.0.1',
+  output: 'static',
+  trailingSlash: 'ignore',
+});
