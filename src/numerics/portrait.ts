@@ -20,6 +20,18 @@ export interface GapReport {
   momentumAtMinimum: number[];
   /** Whether the gap counts as open: minimalGap above the gap tolerance. */
   open: boolean;
+  /** Width of the arc free of states on the k grid (the indirect gap, units π/T); minimalGap ≥ arcWidth. */
+  arcWidth: number;
+}
+
+/** A Chern number with the evidence of its Fukui–Hatsugai–Suzuki lattice computation. */
+export interface ChernEstimate extends IntegerEstimate {
+  /** Largest plaquette flux |F| on the final grid (radians); FHS is exact while every |F| < π. */
+  maxPlaquetteFlux: number;
+  /** The bound |F| had to stay below for convergence (radians, default π/3). */
+  fluxThreshold: number;
+  /** Smallest |det Ψ(k)†Ψ(k′)| over the links of the final grid (near 0: the grid cannot follow the bands). */
+  minimalLinkModulus: number;
 }
 
 /** A band or group of touching bands between two open gaps, counted upward from the cut. */
@@ -28,13 +40,17 @@ export interface BandGroupReport {
   index: number;
   /** Number of eigenphase branches in the group (> 1 when bands touch). */
   branches: number;
-  /** Labels of the gaps below and above (units π/T). */
+  /** Labels of the gaps below and above (units π/T); NaN when the spectrum has no open gap (then one group holds every branch). */
   gapBelow: number;
   gapAbove: number;
-  /** Quasienergy range covered (units π/T). */
+  /** Lowest and highest quasienergy of the group on the k grid (units π/T); lower > upper when the group runs through π. */
   range: [number, number];
+  /** Smallest distance between two branches inside the group on the k grid (units π/T; Infinity for one branch). */
+  minimalInternalGap: number;
+  /** True when branches inside the group come closer than the gap tolerance (touching bands, grouped). */
+  touching: boolean;
   /** Chern number (2D only), Fukui–Hatsugai–Suzuki. */
-  chern?: IntegerEstimate;
+  chern?: ChernEstimate;
 }
 
 export interface WindingReport {
@@ -59,10 +75,10 @@ export interface EdgeCountReport {
   gap: number;
   /** Which edge: "low" = the edge at the first cell of the finite direction, "high" = the last. */
   edge: 'low' | 'high';
-  /** Signed count (Σ of directions), null when unsettled. */
+  /** Signed count (Σ of directions of crossings of `gap` by states on this edge), null when unsettled. */
   count: number | null;
   crossings: EdgeCrossing[];
-  /** Estimated decay length of edge states in cells, and the ribbon width in cells. */
+  /** Estimated decay length of edge states in cells (fitted on the crossing states, else the bulk estimate v/(πΔ)), and the ribbon width in cells. */
   decayLength: number;
   width: number;
   settled: boolean;
@@ -70,9 +86,11 @@ export interface EdgeCountReport {
 }
 
 export interface RibbonReport {
-  /** Index (0 or 1) of the lattice vector along which the ribbon is finite. */
+  /** Index (0 or 1) of the lattice vector along which the ribbon is finite; k∥ is the reduced momentum of the other. */
   finiteDirection: number;
+  /** Ribbon width in cells, and the number of cells on each side counted as edge region. */
   width: number;
+  edgeCells: number;
   /** Momenta along the edge (reduced) and quasienergies per momentum (units π/T). */
   momenta: number[];
   quasienergies: number[][];
@@ -85,8 +103,11 @@ export interface RibbonReport {
 /** A relation between computed invariants that must hold; failures are reported, never smoothed over. */
 export interface ConsistencyCheck {
   name: string;
+  /** True only when every input was settled and the relation holds. */
   holds: boolean;
   detail: string;
+  /** True when an input was unsettled, so the relation could not be tested (then holds is false). */
+  inconclusive?: boolean;
 }
 
 export interface SheetPortrait {
@@ -100,6 +121,14 @@ export interface SheetPortrait {
   consistency: ConsistencyCheck[];
   /** Accuracy of the time integration: largest change of quasienergies under refinement (units π/T). */
   propagatorAccuracy: number;
+  /** Gap tolerance used (units π/T): a gap is open when its minimal direct gap exceeds it. */
+  gapTolerance: number;
+  /** The quasienergy the band groups are counted upward from (units π/T; the label of the cut gap). */
+  cut: number;
+  /** Largest eigen-decomposition residual ‖UV − VΛ‖_F over every momentum evaluated. */
+  eigenResidual: number;
+  /** Number of Floquet operators evaluated for the bulk (bands, refinement, Chern grids). */
+  floquetEvaluations: number;
   /** Wall time per stage in milliseconds. */
   timings: Record<string, number>;
 }

@@ -159,3 +159,101 @@ export function trace(a: ComplexMatrix): Complex {
   }
   return { re, im };
 }
+
+/** C = A†B without forming A†. */
+export function multiplyAdjointLeft(a: ComplexMatrix, b: ComplexMatrix, out?: ComplexMatrix): ComplexMatrix {
+  if (a.rows !== b.rows) throw new RangeError(`multiplyAdjointLeft: (${a.rows}×${a.cols})† times ${b.rows}×${b.cols}`);
+  const n = a.cols, m = a.rows, p = b.cols;
+  const c = out ?? zeros(n, p);
+  if (c === a || c === b) throw new RangeError('multiplyAdjointLeft: output must not alias an input');
+  c.re.fill(0);
+  c.im.fill(0);
+  const ar = a.re, ai = a.im, br = b.re, bi = b.im, cr = c.re, ci = c.im;
+  for (let k = 0; k < m; k++) {
+    const bk = k * p;
+    for (let i = 0; i < n; i++) {
+      // conj(A_ki)
+      const xr = ar[k * n + i], xi = -ai[k * n + i];
+      if (xr === 0 && xi === 0) continue;
+      const ci0 = i * p;
+      for (let j = 0; j < p; j++) {
+        const yr = br[bk + j], yi = bi[bk + j];
+        cr[ci0 + j] += xr * yr - xi * yi;
+        ci[ci0 + j] += xr * yi + xi * yr;
+      }
+    }
+  }
+  return c;
+}
+
+/** C = A·B† without forming B†. */
+export function multiplyAdjointRight(a: ComplexMatrix, b: ComplexMatrix, out?: ComplexMatrix): ComplexMatrix {
+  if (a.cols !== b.cols) throw new RangeError(`multiplyAdjointRight: ${a.rows}×${a.cols} times (${b.rows}×${b.cols})†`);
+  const n = a.rows, m = a.cols, p = b.rows;
+  const c = out ?? zeros(n, p);
+  if (c === a || c === b) throw new RangeError('multiplyAdjointRight: output must not alias an input');
+  const ar = a.re, ai = a.im, br = b.re, bi = b.im, cr = c.re, ci = c.im;
+  for (let i = 0; i < n; i++) {
+    const ai0 = i * m;
+    for (let j = 0; j < p; j++) {
+      const bj0 = j * m;
+      let sr = 0, si = 0;
+      for (let k = 0; k < m; k++) {
+        // A_ik · conj(B_jk)
+        const xr = ar[ai0 + k], xi = ai[ai0 + k], yr = br[bj0 + k], yi = -bi[bj0 + k];
+        sr += xr * yr - xi * yi;
+        si += xr * yi + xi * yr;
+      }
+      cr[i * p + j] = sr;
+      ci[i * p + j] = si;
+    }
+  }
+  return c;
+}
+
+/** ‖U†U − 1‖_F: zero for an exactly unitary matrix. */
+export function unitarityDefect(u: ComplexMatrix): number {
+  if (u.rows !== u.cols) return Infinity;
+  const g = multiplyAdjointLeft(u, u);
+  const n = u.rows;
+  for (let i = 0; i < n; i++) g.re[i * n + i] -= 1;
+  return frobeniusNorm(g);
+}
+
+/** True when ‖U†U − 1‖_F ≤ tolerance. */
+export function isUnitary(u: ComplexMatrix, tolerance = 1e-10 * Math.max(1, u.rows)): boolean {
+  return unitarityDefect(u) <= tolerance;
+}
+
+/** ‖A − A†‖_F: zero for an exactly Hermitian matrix. */
+export function hermiticityDefect(a: ComplexMatrix): number {
+  if (a.rows !== a.cols) return Infinity;
+  const n = a.rows;
+  let s = 0;
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j <= i; j++) {
+      const p = i * n + j, q = j * n + i;
+      const dr = a.re[p] - a.re[q], di = a.im[p] + a.im[q];
+      s += (i === j ? 1 : 2) * (dr * dr + di * di);
+    }
+  }
+  return Math.sqrt(s);
+}
+
+/** Position (row, column) of the first non-finite entry, or undefined when all entries are finite. */
+export function firstNonFinite(a: ComplexMatrix): [number, number] | undefined {
+  for (let p = 0; p < a.re.length; p++) {
+    if (!Number.isFinite(a.re[p]) || !Number.isFinite(a.im[p])) return [Math.floor(p / a.cols), p % a.cols];
+  }
+  return undefined;
+}
+
+/** Largest modulus of the entries (the max norm). */
+export function maxAbs(a: ComplexMatrix): number {
+  let m = 0;
+  for (let p = 0; p < a.re.length; p++) {
+    const v = Math.hypot(a.re[p], a.im[p]);
+    if (v > m) m = v;
+  }
+  return m;
+}

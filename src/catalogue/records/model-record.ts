@@ -1,0 +1,164 @@
+/**
+ * Results records: everything the site shows about one model, and the
+ * catalogue summary. Described by schemas/report.schema.json; written as
+ * canonical JSON (canonical-json.ts) so that two runs give identical bytes.
+ * Nothing machine-dependent belongs here: compute times go to timings.json.
+ */
+import type { Certificate } from '../verify/certificate.ts';
+import type { Verdict } from '../verify/verdict.ts';
+import type { PortraitEntry } from '../verify/sheet-verdicts.ts';
+import type { AnomalousClass } from '../verify/anomalous.ts';
+
+export const RECORD_FORMAT = 1;
+
+/**
+ * verified: every claim confirmed (at least one claim);
+ * disputed: at least one claim contradicted;
+ * unsettled: none contradicted, at least one unsettled;
+ * portrait-only: the file makes no claims; the computed portrait is all there is;
+ * invalid: the file did not load or compile (see diagnostics);
+ * failed: the computation did not finish (timed out, crashed or raised an error).
+ */
+export type ModelStatus = 'verified' | 'disputed' | 'unsettled' | 'portrait-only' | 'invalid' | 'failed';
+
+export interface RecordDiagnostic {
+  file: string;
+  line: number;
+  column: number;
+  pointer: string;
+  message: string;
+  hint: string | null;
+  severity: 'error' | 'warning';
+}
+
+export interface GapRecord {
+  label: number;
+  lower: number;
+  upper: number;
+  minimalGap: number;
+  at: number[];
+  /** The tolerance the gap had to exceed (policy.ts) and the verdict on it. */
+  tolerance: number;
+  open: boolean;
+}
+
+export interface BandRecord {
+  index: number;
+  branches: number;
+  gapBelow: number;
+  gapAbove: number;
+  range: [number, number];
+}
+
+export interface SpectrumRecord {
+  /** What the spectrum is: a ribbon finite along a₁/a₂, or an open chain. */
+  kind: 'ribbon' | 'open-chain';
+  finiteDirection: number | null;
+  width: number;
+  /** Momenta along the edge (reduced), decimated for plotting; empty for an open chain. */
+  momenta: number[];
+  /** Quasienergies (units π/T) per momentum (one row for an open chain), rounded for plotting. */
+  quasienergies: number[][];
+  /** Edge weight of each state: low edge, high edge (rounded to 3 decimals). */
+  lowEdgeWeight: number[][];
+  highEdgeWeight: number[][];
+  /** Every how many momenta of the computed spectrum were kept. */
+  stride: number;
+}
+
+export interface AnalysisRecord {
+  kind: 'sheet' | 'chain';
+  grid: number[];
+  gaps: GapRecord[];
+  bands: BandRecord[];
+  spectra: SpectrumRecord[];
+  consistency: { name: string; holds: boolean; inconclusive: boolean; detail: string }[];
+  propagatorAccuracy: number | null;
+  /** Engine-specific scalar facts worth showing (e.g. symmetry residuals), name → value. */
+  facts: Record<string, number>;
+}
+
+export interface SweepRecord {
+  name: string;
+  title: string | null;
+  axes: { parameter: string; values: number[] }[];
+  quantities: string[];
+  /** One entry per grid point, first axis fastest. */
+  points: SweepPoint[];
+}
+
+export interface SweepPoint {
+  parameters: Record<string, number>;
+  /** quantity id (e.g. "gap-1/winding", "gap-0/minimal-gap") → settled value or null. */
+  values: Record<string, number | null>;
+  /** Grid point could not be computed: why. */
+  error: string | null;
+}
+
+export interface ModelRecord {
+  recordFormat: number;
+  engine: { version: string; numericsHash: string };
+  id: string;
+  file: string;
+  status: ModelStatus;
+  statusReason: string;
+  model: {
+    title: string;
+    summary: string;
+    description: string | null;
+    tags: string[];
+    maintainers: string[];
+    references: { doi: string | null; arxiv: string | null; citation: string | null; note: string | null }[];
+    dates: { created: string; updated: string | null };
+    dimension: number | null;
+    symmetryClass: string | null;
+  } | null;
+  parameters: { name: string; value: number | null; expression: string | null; description: string | null }[];
+  drive: {
+    period: number;
+    latticeVectors: number[][];
+    handedness: 'right' | 'left' | 'n/a';
+    states: string[];
+    nambu: boolean;
+    segments: { label: string | null; duration: number; terms: number; driven: boolean }[];
+  } | null;
+  analysis: AnalysisRecord | null;
+  claims: Verdict[];
+  counts: { confirmed: number; contradicted: number; unsettled: number };
+  portrait: PortraitEntry[];
+  anomalous: { classification: AnomalousClass; reason: string; definition: string };
+  sweeps: SweepRecord[];
+  diagnostics: RecordDiagnostic[];
+  incident: { kind: 'timed-out' | 'crashed' | 'error'; message: string } | null;
+}
+
+/** Machine-dependent facts kept out of the records (timings.json). */
+export interface ModelTimings {
+  /** Wall time of the whole verification, ms; 0 for a cache hit. */
+  totalMs: number;
+  /** Engine stage → ms, as measured when the result was computed. */
+  stages: Record<string, number>;
+  cached: boolean;
+}
+
+export interface CatalogueSummary {
+  recordFormat: number;
+  engine: { version: string; numericsHash: string };
+  /** "i/n" when this summary covers one shard, null for the whole catalogue. */
+  shard: string | null;
+  counts: Record<ModelStatus, number>;
+  models: {
+    id: string;
+    file: string;
+    title: string | null;
+    summary: string | null;
+    tags: string[];
+    dimension: number | null;
+    status: ModelStatus;
+    statusReason: string;
+    anomalous: AnomalousClass;
+    claims: { confirmed: number; contradicted: number; unsettled: number };
+  }[];
+}
+
+export type { Certificate };

@@ -1,0 +1,148 @@
+/** Assembles ModelRecords from loaded models, compiled drives and judgements. */
+import type { LatticeDrive } from '../../numerics/drive.ts';
+import type { SheetPortrait } from '../../numerics/portrait.ts';
+import type { Diagnostic } from '../diagnostics.ts';
+import type { LoadedModel } from '../load.ts';
+import type { ModelDocument } from '../model-types.generated.ts';
+import type { AnalysisRecord, ModelRecord, RecordDiagnostic, SpectrumRecord } from './model-record.ts';
+import { RECORD_FORMAT } from './model-record.ts';
+import { compareCodePoints } from './canonical-json.ts';
+import { decimateRows, roundRows, roundTo, strideFor } from './decimate.ts';
+import { ANOMALOUS_DEFINITION } from '../verify/anomalous.ts';
+import { gapEvidence } from '../verify/sheet-verdicts.ts';
+import type { VerdictPolicy } from '../verify/policy.ts';
+
+export interface EngineIdentity {
+  version: string;
+  numericsHash: string;
+}
+
+export function recordDiagnostic(d: Diagnostic): RecordDiagnostic {
+  return { file: d.file, line: d.line, column: d.column, pointer: d.pointer, message: d.message, hint: d.hint ?? null, severity: d.severity };
+}
+
+export function modelMetadata(doc: ModelDocument): NonNullable<ModelRecord['model']> {
+  return {
+    title: doc.title,
+    summary: doc.summary,
+    description: doc.description ?? null,
+    tags: [...(doc.tags ?? [])],
+    maintainers: [...doc.maintainers],
+    references: (doc.references ?? []).map((r) => ({ doi: r.doi ?? null, arxiv: r.arxiv ?? null, citation: r.citation ?? null, note: r.note ?? null })),
+    dates: { created: doc.dates.created, updated: doc.dates.updated ?? null },
+    dimension: doc.lattice?.dimension ?? null,
+    symmetryClass: doc.claims?.symmetryClass ?? null,
+  };
+}
+
+export function parameterRecords(doc: ModelDocument, values: Record<string, number>): ModelRecord['parameters'] {
+  return Object.keys(doc.parameters ?? {})
+    .sort(compareCodePoints)
+    .map((name) => {
+      const entry = doc.parameters![name];
+      const quantity = typeof entry === 'object' && entry !== null ? entry.value : entry;
+      return {
+        name,
+        value: Object.hasOwn(values, name) ? values[name] : null,
+        expression: typeof quantity === 'string' ? quantity : null,
+        description: typeof entry === 'object' && entry !== null ? (entry.description ?? null) : null,
+      };
+    });
+}
+
+export function driveSummary(drive: LatticeDrive, nambu: boolean): NonNullable<ModelRecord['drive']> {
+  let handedness: 'right' | 'left' | 'n/a' = 'n/a';
+  if (drive.dimension === 2) {
+    const [a1, a2] = drive.latticeVectors;
+    handedness = a1[0] * a2[1] - a1[1] * a2[0] > 0 ? 'right' : 'left';
+  }
+  return {
+    period: drive.period,
+    latticeVectors: drive.latticeVectors.map((v) => [...v]),
+    handedness,
+    states: drive.states.map((s) => s.label),
+    nambu,
+    segments: drive.segments.map((s) => ({
+      label: s.label ?? null,
+      duration: s.duration,
+      terms: s.terms.length,
+      driven: (s.vectorPotential ?? []).some((c) => c.harmonic !== 0) || s.terms.some((t) => t.modulation.kind === 'harmonic'),
+    })),
+  };
+}
+
+export function sheetAnalysis(p: SheetPortrait, policy: VerdictPolicy): AnalysisRecord {
+  const spectra: SpectrumRecord[] = p.ribbons.map((r) => {
+    const stride = strideFor(r.momenta.length);
+    return {
+      kind: 'ribbon',
+      finiteDirection: r.finiteDirection,
+      width: r.width,
+      momenta: decimateRows(r.momenta, stride).map((k) => roundTo(k, 1e-6)),
+      quasienergies: roundRows(decimateRows(r.quasienergies, stride), 1e-5),
+      lowEdgeWeight: roundRows(decimateRows(r.lowEdgeWeight, stride), 1e-3),
+      highEdgeWeight: roundRows(decimateRows(r.highEdgeWeight, stride), 1e-3),
+      stride,
+    };
+  });
+  return {
+    kind: 'sheet',
+    grid: [...p.grid],
+    gaps: p.gaps.map((g) => {
+      const ev = gapEvidence(p, g.label, policy);
+      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
+    }),
+    bands: p.bands.map((b) => ({ index: b.index, branches: b.branches, gapBelow: b.gapBelow, gapAbove: b.gapAbove, range: [b.range[0], b.range[1]] })),
+    spectra,
+    consistency: p.consistency.map((c) => ({ name: c.name, holds: c.holds, inconclusive: c.inconclusive === true, detail: c.detail })),
+    propagatorAccuracy: p.propagatorAccuracy,
+    facts: { gapTolerance: p.gapTolerance, eigenResidual: p.eigenResidual, floquetEvaluations: p.floquetEvaluations, cut: p.cut },
+  };
+}
+
+/** A record for a model that did not load or compile. */
+export function invalidRecord(engine: EngineIdentity, id: string, file: string, diagnostics: Diagnostic[], doc?: ModelDocument): ModelRecord {
+  const errors = diagnostics.filter((d) => d.severity === 'error');
+  const first = errors[0] ?? diagnostics[0];
+  return {
+    recordFormat: RECORD_FORMAT,
+    engine,
+    id,
+    file,
+    status: 'invalid',
+    statusReason: first ? `${first.file}:${first.line}:${first.column} ${first.message}` : 'the file did not load',
+    model: doc ? safeMetadata(doc) : null,
+    parameters: [],
+    drive: null,
+    analysis: null,
+    claims: [],
+    counts: { confirmed: 0, contradicted: 0, unsettled: 0 },
+    portrait: [],
+    anomalous: { classification: 'undetermined', reason: 'the model is invalid', definition: ANOMALOUS_DEFINITION },
+    sweeps: [],
+    diagnostics: diagnostics.map(recordDiagnostic),
+    incident: null,
+  };
+}
+
+/** A record for a model whose computation did not finish. */
+export function failedRecord(engine: EngineIdentity, loaded: LoadedModel, kind: 'timed-out' | 'crashed' | 'error', message: string): ModelRecord {
+  return {
+    ...invalidRecord(engine, loaded.id, loaded.file, loaded.warnings, loaded.document),
+    status: 'failed',
+    statusReason: message,
+    parameters: parameterRecords(loaded.document, loaded.parameters),
+    anomalous: { classification: 'undetermined', reason: 'the computation did not finish', definition: ANOMALOUS_DEFINITION },
+    incident: { kind, message },
+  };
+}
+
+function safeMetadata(doc: ModelDocument): ModelRecord['model'] {
+  try {
+    return modelMetadata(doc);
+  } catch {
+    return null;
+  }
+}
+
+export { RECORD_FORMAT };

@@ -1,0 +1,210 @@
+/**
+ * Validation of model documents against schemas/model.schema.json (JSON Schema
+ * draft 2020-12, Ajv2020), and the one function that turns Ajv's errors into
+ * plain, actionable messages.
+ */
+import { Ajv2020, type ErrorObject, type ValidateFunction } from 'ajv/dist/2020.js';
+import addFormatsModule from 'ajv-formats';
+import rootSchema from '../../schemas/model.schema.json';
+import claimsSchema from '../../schemas/model/claims.json';
+import commonSchema from '../../schemas/model/common.json';
+import driveSchema from '../../schemas/model/drive.json';
+import latticeSchema from '../../schemas/model/lattice.json';
+import numericsSchema from '../../schemas/model/numerics.json';
+import parametersSchema from '../../schemas/model/parameters.json';
+import provenanceSchema from '../../schemas/model/provenance.json';
+import sweepsSchema from '../../schemas/model/sweeps.json';
+import { joinPointer, suggestName, type Issue } from './diagnostics.ts';
+
+type SchemaNode = Record<string, unknown>;
+// ajv-formats ships CommonJS; under some loaders the plugin sits on .default.
+const addFormats = ((addFormatsModule as unknown as { default?: unknown }).default ?? addFormatsModule) as (ajv: Ajv2020) => void;
+
+export const MODEL_SCHEMAS: readonly SchemaNode[] = [
+  commonSchema, provenanceSchema, latticeSchema, parametersSchema, driveSchema, claimsSchema, numericsSchema, sweepsSchema,
+];
+
+let compiled: ValidateFunction | undefined;
+
+/** The compiled validator (built once). */
+export function modelValidator(): ValidateFunction {
+  if (!compiled) {
+    const ajv = new Ajv2020({ allErrors: true, verbose: true, strict: true, strictRequired: false, allowUnionTypes: true, discriminator: true });
+    addFormats(ajv);
+    for (const schema of MODEL_SCHEMAS) ajv.addSchema(schema);
+    compiled = ajv.compile(rootSchema);
+  }
+  return compiled;
+}
+
+/** Validates a parsed document; returns plain-language issues (empty when valid). */
+export function validateDocument(document: unknown): Issue[] {
+  const validate = modelValidator();
+  if (validate(document)) return [];
+  return describeSchemaErrors(validate.errors ?? []);
+}
+
+const typeNames: Record<string, string> = {
+  number: 'a number', integer: 'an integer', string: 'a string', boolean: 'true or false', object: 'an object', array: 'a list', null: 'null',
+};
+
+function typeOf(value: unknown): string {
+  if (value === null) return 'null';
+  if (Array.isArray(value)) return 'a list';
+  if (typeof value === 'number') return Number.isInteger(value) ? `the number ${value}` : `the number ${value}`;
+  if (typeof value === 'string') return `the string ${JSON.stringify(value.length > 40 ? value.slice(0, 40) + '…' : value)}`;
+  if (typeof value === 'boolean') return String(value);
+  return 'an object';
+}
+
+function expectedTypes(type: unknown): string {
+  const list = (Array.isArray(type) ? type : [type]).map((t) => {
+    if (t === 'string') return 'an expression string';
+    return typeNames[String(t)] ?? String(t);
+  });
+  if (list.length === 1 && Array.isArray(type) === false && type === 'string') return 'a string';
+  return list.length <= 1 ? list.join('') : `${list.slice(0, -1).join(', ')} or ${list[list.length - 1]}`;
+}
+
+function listValues(values: readonly unknown[]): string {
+  return values.map((v) => JSON.stringify(v)).join(', ');
+}
+
+/** Short description of one alternative of an anyOf, for "expected … or …" messages. */
+function describeBranch(branch: SchemaNode): string {
+  const resolved = branch;
+  if (typeof resolved.$ref === 'string' && /quantity$/.test(resolved.$ref)) return 'a number or an expression string';
+  if (typeof resolved.$ref === 'string') return resolved.$ref.split('/').pop() ?? 'a value';
+  if (resolved.type === 'object' && Array.isArray(resolved.required)) return `an object with ${resolved.required.map((r) => `"${r}"`).join(' and ')}`;
+  return expectedTypes(resolved.type);
+}
+
+/** First sentence of a schema description, for hints. */
+function firstSentence(text: unknown): string | undefined {
+  if (typeof text !== 'string') return undefined;
+  const m = /^(.*?[.])(\s|$)/.exec(text);
+  return (m ? m[1] : text).replace(/\.$/, '');
+}
+
+/**
+ * Turns Ajv errors into plain messages. Alternatives (anyOf) are collapsed: when
+ * only one alternative has the right JSON type its own errors are reported,
+ * otherwise one "expected … or …" message replaces the branch errors.
+ */
+export function describeSchemaErrors(errors: readonly ErrorObject[]): Issue[] {
+  const issues: Issue[] = [];
+  const suppressed = new Set<ErrorObject>();
+
+  for (const error of errors) {
+    if (error.keyword !== 'anyOf' && error.keyword !== 'oneOf') continue;
+    const prefix = error.schemaPath + '/';
+    const branchErrors = errors.filter((e) => e !== error && e.schemaPath.startsWith(prefix));
+    const branches = error.schema as SchemaNode[];
+    const applicable = branches
+      .map((_, i) => i)
+      .filter((i) => !branchErrors.some((e) => e.schemaPath.startsWith(`${prefix}${i}/`) && e.keyword === 'type' && e.instancePath === error.instancePath) &&
+        !branchErrors.some((e) => e.schemaPath.startsWith(`${prefix}${i}/`) && e.keyword === '$ref'));
+    const refBranches = branches.map((b, i) => (typeof b.$ref === 'string' && /quantity$/.test(b.$ref) ? i : -1)).filter((i) => i >= 0);
+    const quantityApplies = typeof error.data === 'number' || typeof error.data === 'string';
+    let keep: number | undefined;
+    if (quantityApplies && refBranches.length === 1) keep = refBranches[0];
+    else if (!quantityApplies) {
+      const objectBranches = applicable.filter((i) => !refBranches.includes(i));
+      if (objectBranches.length === 1) keep = objectBranches[0];
+    }
+    for (const e of branchErrors) if (keep === undefined || !e.schemaPath.startsWith(`${prefix}${keep}/`)) suppressed.add(e);
+    if (keep !== undefined) suppressed.add(error);
+    else if (branches.every((b) => Object.keys(b).length === 1 && Array.isArray(b.required))) {
+      const names = branches.map((b) => `"${(b.required as string[])[0]}"`);
+      issues.push({ pointer: error.instancePath, message: `needs at least one of ${names.join(', ')}` });
+      suppressed.add(error);
+    } else {
+      issues.push({
+        pointer: error.instancePath,
+        message: `expected ${branches.map(describeBranch).join(', or ')}; found ${typeOf(error.data)}`,
+      });
+      suppressed.add(error);
+    }
+  }
+
+  for (const error of errors) {
+    if (suppressed.has(error)) continue;
+    const issue = describeSchemaError(error);
+    if (issue) issues.push(issue);
+  }
+  // One message per pointer and text: several schema paths can report the same fault.
+  const seen = new Set<string>();
+  return issues.filter((i) => {
+    const key = `${i.pointer}\u0000${i.message}`;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
+
+/** One Ajv error → one plain message (undefined for errors that only summarise others). */
+export function describeSchemaError(error: ErrorObject): Issue | undefined {
+  const at = error.instancePath;
+  const params = error.params as Record<string, unknown>;
+  const parent = (error.parentSchema ?? {}) as SchemaNode;
+  switch (error.keyword) {
+    case 'required': {
+      const name = String(params.missingProperty);
+      const description = firstSentence(((parent.properties as Record<string, SchemaNode> | undefined)?.[name])?.description);
+      const issue: Issue = { pointer: at, message: `missing property "${name}"` };
+      if (description) issue.hint = `${name}: ${description}`;
+      return issue;
+    }
+    case 'additionalProperties': {
+      const name = String(params.additionalProperty);
+      const allowed = Object.keys((parent.properties as Record<string, unknown> | undefined) ?? {});
+      return { pointer: joinPointer(at, name), target: 'key', message: `unknown property "${name}"`, hint: suggestName(name, allowed, 'allowed properties') };
+    }
+    case 'type':
+      return { pointer: at, message: `expected ${expectedTypes(params.type)}; found ${typeOf(error.data)}` };
+    case 'enum':
+      return { pointer: at, message: `expected one of ${listValues(params.allowedValues as unknown[])}; found ${JSON.stringify(error.data)}` };
+    case 'const':
+      return { pointer: at, message: `must be ${JSON.stringify(params.allowedValue)}; found ${JSON.stringify(error.data)}` };
+    case 'pattern': {
+      const what = firstSentence(parent.description);
+      return { pointer: at, message: `${JSON.stringify(error.data)} is not in the expected form`, hint: what ?? `expected to match ${String(params.pattern)}` };
+    }
+    case 'propertyNames':
+      return undefined; // the nested pattern error (with propertyName) says it better
+    case 'format':
+      return { pointer: at, message: `${JSON.stringify(error.data)} is not a valid ${String(params.format)}`, hint: params.format === 'date' ? 'write dates as YYYY-MM-DD, e.g. 2024-03-15' : undefined };
+    case 'minItems':
+      return { pointer: at, message: `needs at least ${String(params.limit)} entr${params.limit === 1 ? 'y' : 'ies'}; found ${(error.data as unknown[]).length}` };
+    case 'maxItems':
+      return { pointer: at, message: `has ${(error.data as unknown[]).length} entries; at most ${String(params.limit)} are supported`, hint: firstSentence(parent.description) };
+    case 'minLength':
+      return { pointer: at, message: params.limit === 1 ? 'must not be empty' : `needs at least ${String(params.limit)} characters` };
+    case 'maxLength':
+      return { pointer: at, message: `is longer than ${String(params.limit)} characters` };
+    case 'minimum':
+    case 'maximum':
+    case 'exclusiveMinimum':
+    case 'exclusiveMaximum': {
+      const op = { minimum: '≥', maximum: '≤', exclusiveMinimum: '>', exclusiveMaximum: '<' }[error.keyword];
+      return { pointer: at, message: `must be ${op} ${String(params.limit)}; found ${JSON.stringify(error.data)}` };
+    }
+    case 'maxProperties':
+      return { pointer: at, message: `has more than ${String(params.limit)} entries` };
+    case 'uniqueItems':
+      return { pointer: at, message: `entries ${String(params.j)} and ${String(params.i)} are identical`, hint: 'remove the duplicate' };
+    case 'discriminator': {
+      const options = ((parent.oneOf as SchemaNode[] | undefined) ?? []).map((b) => (b.properties as Record<string, SchemaNode>)?.[String(params.tag)]?.const);
+      if (params.error === 'mapping') {
+        return { pointer: joinPointer(at, String(params.tag)), message: `expected one of ${listValues(options)}; found ${JSON.stringify((error.data as Record<string, unknown>)[String(params.tag)])}` };
+      }
+      return { pointer: at, message: `property "${String(params.tag)}" must be a string, one of ${listValues(options)}` };
+    }
+    case 'if':
+    case 'anyOf':
+    case 'oneOf':
+      return undefined;
+    default:
+      return { pointer: at, message: error.message ?? `fails the ${error.keyword} rule` };
+  }
+}

@@ -1,0 +1,136 @@
+/**
+ * One parameter point of one model: compile, run the engine for its
+ * dimension, judge the claims and collect the portrait. Used by verification
+ * (the model's own point) and by sweeps (every grid point).
+ */
+import type { LoadedModel } from '../load.ts';
+import type { AnalysisRecord } from '../records/model-record.ts';
+import { sheetAnalysis } from '../records/record-builder.ts';
+import { decimateRows, roundTo } from '../records/decimate.ts';
+import type { AnomalousFlag } from './anomalous.ts';
+import { anomalousClaimHolds, classifyChain, classifySheet } from './anomalous.ts';
+import { emptyCertificate } from './certificate.ts';
+import type { ChainView } from './chain-view.ts';
+import { judgeChain } from './chain-verdicts.ts';
+import type { NormalizedClaim } from './claims.ts';
+import { claimedGapLabels } from './claims.ts';
+import type { AnalysisRequest, EngineSet } from './engines.ts';
+import type { VerdictPolicy } from './policy.ts';
+import type { PortraitEntry } from './sheet-verdicts.ts';
+import { gapEvidence, judgeSheet, sameLabel } from './sheet-verdicts.ts';
+import type { Verdict } from './verdict.ts';
+
+export interface PointResult {
+  dimension: number;
+  analysis: AnalysisRecord;
+  verdicts: Verdict[];
+  entries: PortraitEntry[];
+  anomalous: AnomalousFlag;
+  stages: Record<string, number>;
+  drive: ReturnType<EngineSet['compile']>;
+}
+
+export function analysePoint(
+  loaded: LoadedModel,
+  claims: NormalizedClaim[],
+  engines: EngineSet,
+  policy: VerdictPolicy,
+  options: { overrides?: Record<string, number>; skip?: AnalysisRequest['skip']; symmetricTimes: number[]; extraLabels?: number[] },
+): PointResult {
+  const stages: Record<string, number> = {};
+  let t = performance.now();
+  const compiled = engines.compile(loaded, options.overrides);
+  stages.compile = performance.now() - t;
+  const labels = claimedGapLabels(claims);
+  for (const l of options.extraLabels ?? []) if (!labels.some((x) => sameLabel(x, l))) labels.push(l);
+  const request: AnalysisRequest = { labels, hints: loaded.document.numerics, skip: options.skip ?? new Set(), symmetricTimes: options.symmetricTimes };
+  const dimension = compiled.drive.dimension;
+  t = performance.now();
+  if (dimension === 2) {
+    const portrait = engines.sheet(compiled, request);
+    stages.engine = performance.now() - t;
+    Object.assign(stages, prefixed(portrait.timings));
+    const { verdicts, entries } = judgeSheet(portrait, claims, policy);
+    const anomalous = classifySheet(entries);
+    finishAnomalousClaims(verdicts, claims, anomalous, 2, entries);
+    return { dimension, analysis: sheetAnalysis(portrait, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
+  }
+  if (dimension === 1) {
+    const view = engines.chain(compiled, request);
+    stages.engine = performance.now() - t;
+    Object.assign(stages, prefixed(view.timings));
+    const { verdicts, entries } = judgeChain(view, claims, policy);
+    const pi = entries.find((e) => e.quantity === 'gap-invariant' && e.gap !== null && sameLabel(e.gap, 1));
+    const anomalous = classifyChain(pi);
+    finishAnomalousClaims(verdicts, claims, anomalous, 1, entries);
+    return { dimension, analysis: chainAnalysis(view, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
+  }
+  throw new Error(`lattice dimension ${dimension} is not supported (only chains and sheets)`);
+}
+
+function prefixed(timings: Record<string, number>): Record<string, number> {
+  return Object.fromEntries(Object.entries(timings).map(([k, v]) => [`engine.${k}`, v]));
+}
+
+/** Verdicts in the order of the claims (the file's order). */
+function ordered(verdicts: Verdict[], claims: NormalizedClaim[]): Verdict[] {
+  const index = new Map(claims.map((c, i) => [c.id, i]));
+  return [...verdicts].sort((a, b) => (index.get(a.claim) ?? 0) - (index.get(b.claim) ?? 0));
+}
+
+function finishAnomalousClaims(verdicts: Verdict[], claims: NormalizedClaim[], flag: AnomalousFlag, dimension: number, entries: PortraitEntry[]): void {
+  for (const claim of claims) {
+    if (claim.kind !== 'anomalous') continue;
+    const holds = anomalousClaimHolds(flag, dimension);
+    const certificate = emptyCertificate('anomalous');
+    certificate.notes.push(flag.reason);
+    certificate.gaps = entries.flatMap((e) => e.certificate.gaps).filter((g, i, all) => all.findIndex((h) => sameLabel(h.gap, g.gap)) === i);
+    const base = { claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: null, claimed: claim.value, certificate };
+    if (holds === null) {
+      verdicts.push({ ...base, outcome: 'unsettled', computed: null, estimate: null, message: `Whether the phase is anomalous could not be settled: ${flag.reason}.`, hint: null });
+    } else if (holds === claim.value) {
+      verdicts.push({ ...base, outcome: 'confirmed', computed: holds, estimate: holds, message: `The phase is ${holds ? '' : 'not '}anomalous, as claimed: ${flag.reason}.`, hint: null });
+    } else {
+      const hint =
+        dimension === 2 && flag.classification === 'anomalous'
+          ? 'every gap carries a winding number, but some band has a nonzero Chern number; "anomalous" in model files means Chern-trivial anomalous'
+          : null;
+      verdicts.push({ ...base, outcome: 'contradicted', computed: holds, estimate: holds, message: `The phase is ${holds ? '' : 'not '}anomalous, but the file claims it ${claim.value ? 'is' : 'is not'}: ${flag.reason}.`, hint });
+    }
+  }
+}
+
+export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisRecord {
+  const spectra: AnalysisRecord['spectra'] = [];
+  if (view.openChain) {
+    // Sort states by quasienergy for plotting; keep at most 400 states (every stride-th).
+    const order = view.openChain.quasienergies.map((e, i) => [e, i] as const).sort((a, b) => a[0] - b[0]).map(([, i]) => i);
+    const stride = Math.max(1, Math.ceil(order.length / 400));
+    const kept = decimateRows(order, stride);
+    spectra.push({
+      kind: 'open-chain',
+      finiteDirection: null,
+      width: view.openChain.length,
+      momenta: [],
+      quasienergies: [kept.map((i) => roundTo(view.openChain!.quasienergies[i], 1e-5))],
+      lowEdgeWeight: [kept.map((i) => roundTo(view.openChain!.lowEdgeWeight[i], 1e-3))],
+      highEdgeWeight: [kept.map((i) => roundTo(view.openChain!.highEdgeWeight[i], 1e-3))],
+      stride,
+    });
+  }
+  const facts: Record<string, number> = {};
+  for (const s of view.symmetry) facts[`symmetry: ${s.name}`] = s.residual;
+  return {
+    kind: 'chain',
+    grid: [...view.grid],
+    gaps: view.gaps.map((g) => {
+      const ev = gapEvidence(view, g.label, policy);
+      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
+    }),
+    bands: view.bands.map((b) => ({ index: b.index, branches: b.branches, gapBelow: b.gapBelow, gapAbove: b.gapAbove, range: [b.range[0], b.range[1]] })),
+    spectra,
+    consistency: view.consistency.map((c) => ({ name: c.name, holds: c.holds, inconclusive: c.inconclusive === true, detail: c.detail })),
+    propagatorAccuracy: view.propagatorAccuracy,
+    facts,
+  };
+}

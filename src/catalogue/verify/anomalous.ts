@@ -1,0 +1,71 @@
+/**
+ * Anomalous Floquet phases, computed from the portrait rather than taken from
+ * the claims.
+ *
+ * Definition (two dimensions). A drive is *anomalous* when every quasienergy
+ * gap carries a nonzero Rudner–Lindner–Berg–Levin winding number W: each gap
+ * then hosts chiral edge modes, and no static Hamiltonian has this edge
+ * spectrum, because a static band structure is bounded and the gap "above its
+ * top" (the π gap when the bandwidth is below 2π/T) always has W = 0
+ * (Rudner, Lindner, Berg, Levin, PRX 3, 031005 (2013)). It is *Chern-trivial
+ * anomalous* when, in addition, every band has Chern number 0; then W is the
+ * same in every gap (W differs between two gaps by the sum of the Chern
+ * numbers of the bands between them) and the Chern numbers alone would
+ * predict no edge modes at all.
+ *
+ * Definition (one dimension). A chain is anomalous when the invariant of the
+ * gap at quasienergy π/T is nonzero: it has end modes at π, which no static
+ * chain can have (Kitagawa, Berg, Rudner, Demler, PRB 82, 235114 (2010);
+ * Jiang et al., PRL 106, 220402 (2011)).
+ *
+ * The flag is only given on settled evidence: "undetermined" when a gap or an
+ * invariant it needs is unsettled and no settled value already decides it.
+ */
+import type { PortraitEntry } from './sheet-verdicts.ts';
+
+export type AnomalousClass = 'chern-trivial-anomalous' | 'anomalous' | 'not-anomalous' | 'undetermined';
+
+export interface AnomalousFlag {
+  classification: AnomalousClass;
+  /** Why, in one sentence. */
+  reason: string;
+}
+
+export const ANOMALOUS_DEFINITION =
+  'Two dimensions: anomalous when every quasienergy gap carries a nonzero winding number W (no static Hamiltonian has this edge spectrum); Chern-trivial anomalous when in addition every band has Chern number 0. One dimension: anomalous when the invariant of the gap at π/T is nonzero (end modes at quasienergy π/T).';
+
+export function classifySheet(entries: PortraitEntry[]): AnomalousFlag {
+  const windings = entries.filter((e) => e.quantity === 'winding');
+  const cherns = entries.filter((e) => e.quantity === 'chern');
+  if (windings.length === 0) return { classification: 'undetermined', reason: 'no open quasienergy gap was found, so no winding number is defined' };
+  const zero = windings.find((w) => w.settled && w.value === 0);
+  if (zero) return { classification: 'not-anomalous', reason: `${zero.label} is 0` };
+  const unsettled = windings.find((w) => !w.settled);
+  if (unsettled) return { classification: 'undetermined', reason: `${unsettled.label} is unsettled` };
+  const values = windings.map((w) => w.value).join(', ');
+  if (cherns.length > 0 && cherns.every((c) => c.settled && c.value === 0)) {
+    return { classification: 'chern-trivial-anomalous', reason: `every gap has W ≠ 0 (${values}) and every band has C = 0` };
+  }
+  const unsettledChern = cherns.find((c) => !c.settled);
+  if (unsettledChern) {
+    return { classification: 'anomalous', reason: `every gap has W ≠ 0 (${values}); ${unsettledChern.label} is unsettled, so Chern-triviality is not decided` };
+  }
+  return { classification: 'anomalous', reason: `every gap has W ≠ 0 (${values}), with nonzero band Chern numbers (${cherns.map((c) => c.value).join(', ')})` };
+}
+
+/** One dimension: `piInvariant` is the portrait entry of the gap at π/T, if any. */
+export function classifyChain(piInvariant: PortraitEntry | undefined): AnomalousFlag {
+  if (!piInvariant) return { classification: 'undetermined', reason: 'the gap at π/T is closed or was not examined' };
+  if (!piInvariant.settled) return { classification: 'undetermined', reason: `${piInvariant.label} is unsettled` };
+  if (piInvariant.value !== 0) return { classification: 'anomalous', reason: `${piInvariant.label} is ${piInvariant.value}: end modes at π/T` };
+  return { classification: 'not-anomalous', reason: `${piInvariant.label} is 0` };
+}
+
+/** Whether the file's `anomalous` claim (schema: edge modes although every band is Chern-trivial; 1D: π modes) holds. */
+export function anomalousClaimHolds(flag: AnomalousFlag, dimension: number): boolean | null {
+  if (flag.classification === 'undetermined') return null;
+  if (dimension === 1) return flag.classification === 'anomalous';
+  // A flag 'anomalous' with a Chern number still unsettled cannot decide the claim.
+  if (flag.classification === 'anomalous' && /unsettled/.test(flag.reason)) return null;
+  return flag.classification === 'chern-trivial-anomalous';
+}

@@ -1,0 +1,50 @@
+/**
+ * What chain verdicts need from the one-dimensional engine, in one shape.
+ * `fromChainPortrait` (chain-adapter.ts) fills it from the engine's ChainPortrait;
+ * tests fill it by hand.
+ */
+import type { IntegerEstimate } from '../../numerics/certificates.ts';
+import type { BandGroupReport, ConsistencyCheck, GapReport } from '../../numerics/portrait.ts';
+
+export interface ChainInvariant {
+  /** Gap label (units π/T): 0 for ν₀, 1 for ν_π. */
+  gap: number;
+  /** Integer winding (chiral classes) or Z₂ index 0/1 (class D). */
+  kind: 'winding' | 'z2';
+  estimate: IntegerEstimate;
+}
+
+export interface FrameWinding {
+  /** Start time t₀ of the symmetric frame. */
+  time: number;
+  /** "first" (ν′) or "second" (ν″) frame, in the order the file lists symmetricTimes. */
+  name: 'first' | 'second';
+  estimate: IntegerEstimate;
+}
+
+export interface EndModeCount {
+  gap: number;
+  /** Modes at this quasienergy bound to each end, null when unsettled. */
+  count: number | null;
+  settled: boolean;
+  reason?: string;
+  chainLength: number;
+  decayLength: number;
+}
+
+export interface ChainView {
+  grid: number[];
+  gaps: GapReport[];
+  bands: BandGroupReport[];
+  invariants: ChainInvariant[];
+  frames: FrameWinding[];
+  endModes: EndModeCount[];
+  openChain: { length: number; quasienergies: number[]; lowEdgeWeight: number[]; highEdgeWeight: number[] } | null;
+  /** Symmetry residuals (e.g. ‖ΓUΓ† − U†‖ per frame) with their tolerance. */
+  symmetry: { name: string; residual: number; tolerance: number }[];
+  consistency: ConsistencyCheck[];
+  propagatorAccuracy: number | null;
+  /** The engine's gap tolerance (units π/T). */
+  gapTolerance?: number;
+  timings: Record<string, number>;
+}

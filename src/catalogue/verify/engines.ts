@@ -1,0 +1,27 @@
+/**
+ * The engines verification calls, behind one interface so that the pipeline
+ * (records, cache, workers, sweeps) can be exercised with stand-in engines and
+ * so the mapping from model-file hints to engine options lives in one place.
+ */
+import type { CompiledModel } from '../compile.ts';
+import type { LoadedModel } from '../load.ts';
+import type { NumericsHints } from '../model-types.generated.ts';
+import type { SheetPortrait } from '../../numerics/portrait.ts';
+import type { ChainView } from './chain-view.ts';
+
+/** What a caller needs from the engines for one parameter point. */
+export interface AnalysisRequest {
+  /** Gap labels (units π/T) that claims or sweeps name; the engines also find other gaps. */
+  labels: number[];
+  hints: NumericsHints | undefined;
+  /** Skip costly stages nobody asked for (sweeps): 'chern', 'winding', 'edges'. */
+  skip: ReadonlySet<'chern' | 'winding' | 'edges'>;
+  /** Start times of the chiral symmetric frames (chains), evaluated. */
+  symmetricTimes: number[];
+}
+
+export interface EngineSet {
+  compile(model: LoadedModel, overrides?: Record<string, number>): CompiledModel;
+  sheet(compiled: CompiledModel, request: AnalysisRequest): SheetPortrait;
+  chain(compiled: CompiledModel, request: AnalysisRequest): ChainView;
+}

@@ -1,0 +1,271 @@
+/**
+ * Verdicts and portrait entries for two-dimensional drives (SheetPortrait).
+ *
+ * Quantities: band Chern numbers (Fukui–Hatsugai–Suzuki), gap winding numbers
+ * (Rudner–Lindner–Berg–Levin), signed edge counts on ribbons, minimal gaps.
+ * Recognised causes of a contradiction:
+ *   - the claim is minus the computed value: an orientation error;
+ *   - the claim equals the value of another gap, band or edge: a mix-up.
+ */
+import type { BandGroupReport, GapReport, SheetPortrait } from '../../numerics/portrait.ts';
+import type { GapEvidence } from './certificate.ts';
+import { emptyCertificate } from './certificate.ts';
+import type { NormalizedClaim } from './claims.ts';
+import { gapKey } from './claims.ts';
+import type { SettledInteger } from './evidence.ts';
+import { judgeEstimate } from './evidence.ts';
+import { formatQuasienergy } from './format.ts';
+import type { VerdictPolicy } from './policy.ts';
+import { gapTolerance } from './policy.ts';
+import type { Alternative, Verdict } from './verdict.ts';
+import { integerVerdict } from './verdict.ts';
+
+const SAME = 1e-6;
+
+export const SIGN_HINT_ORIENTATION = 'sign differs: check the orientation of (a₁, a₂) (the basis must be right-handed)';
+export const SIGN_HINT_EDGE = 'sign differs: check the orientation of (a₁, a₂) or the direction of k_∥';
+
+export function sameLabel(a: number, b: number): boolean {
+  const d = Math.abs(a - b);
+  return d < SAME || Math.abs(d - 2) < SAME;
+}
+
+/** Width (units π/T) of a quasienergy range that may wrap through π. */
+export function rangeWidth(range: [number, number]): number {
+  const w = range[1] - range[0];
+  return w >= 0 ? w : w + 2;
+}
+
+/** The gap a claimed label names: exact label first, else the arc containing it. */
+export function findGap(gaps: GapReport[], label: number): GapReport | undefined {
+  const exact = gaps.find((g) => sameLabel(g.label, label));
+  if (exact) return exact;
+  return gaps.find((g) => (g.lower <= g.upper ? label > g.lower && label < g.upper : label > g.lower || label < g.upper));
+}
+
+function adjacentWidth(bands: BandGroupReport[], label: number): number {
+  let width = 0;
+  for (const b of bands) if (sameLabel(b.gapBelow, label) || sameLabel(b.gapAbove, label)) width = Math.max(width, rangeWidth(b.range));
+  return width;
+}
+
+/** The engine's own gap tolerance (model numerics.tolerances.gap) raises the policy floor, never lowers it. */
+export interface GapSource {
+  gaps: GapReport[];
+  bands: BandGroupReport[];
+  grid: number[];
+  gapTolerance?: number;
+}
+
+export function gapEvidence(portrait: GapSource, label: number, policy: VerdictPolicy): GapEvidence {
+  const floor = Math.max(policy.gapFloor, portrait.gapTolerance ?? 0);
+  const gap = findGap(portrait.gaps, label);
+  if (!gap) return { gap: label, minimalGap: 0, at: [], tolerance: floor, open: false };
+  const tolerance = gapTolerance({ ...policy, gapFloor: floor }, adjacentWidth(portrait.bands, gap.label), portrait.grid);
+  return { gap: gap.label, minimalGap: gap.minimalGap, at: [...gap.momentumAtMinimum], tolerance, open: gap.open && gap.minimalGap > tolerance };
+}
+
+/** Band groups ordered upward from the gap `cut` (following gapAbove links), or null if the cut is not a gap edge. */
+export function bandsFromCut(bands: BandGroupReport[], cut: number): BandGroupReport[] | null {
+  const first = bands.find((b) => sameLabel(b.gapBelow, cut));
+  if (!first) return null;
+  const ordered = [first];
+  while (ordered.length < bands.length) {
+    const last = ordered[ordered.length - 1];
+    const next = bands.find((b) => !ordered.includes(b) && sameLabel(b.gapBelow, last.gapAbove));
+    if (!next) break;
+    ordered.push(next);
+  }
+  return ordered;
+}
+
+function windingEvidence(p: SheetPortrait, label: number, policy: VerdictPolicy): SettledInteger {
+  const gap = findGap(p.gaps, label);
+  const report = gap ? p.windings.find((w) => sameLabel(w.gap, gap.label)) : undefined;
+  return judgeEstimate(report?.winding, [gapEvidence(p, label, policy)], policy, 'winding');
+}
+
+function chernEvidence(p: SheetPortrait, band: BandGroupReport, policy: VerdictPolicy): SettledInteger {
+  const gaps = [gapEvidence(p, band.gapBelow, policy), gapEvidence(p, band.gapAbove, policy)];
+  const ev = judgeEstimate(band.chern, gaps, policy, 'chern');
+  const c = band.chern;
+  if (c) {
+    ev.certificate.notes.push(
+      `largest plaquette flux ${c.maxPlaquetteFlux.toPrecision(3)} rad (bound ${c.fluxThreshold.toPrecision(3)}), smallest link modulus ${c.minimalLinkModulus.toPrecision(3)}`,
+    );
+  }
+  if (band.touching) ev.certificate.notes.push(`${band.branches} touching branches grouped (smallest internal gap ${band.minimalInternalGap.toPrecision(3)} π/T)`);
+  return ev;
+}
+
+function edgeEvidence(p: SheetPortrait, label: number, finiteAlong: number, end: 'low' | 'high', policy: VerdictPolicy): SettledInteger {
+  const gap = findGap(p.gaps, label);
+  const ribbon = p.ribbons.find((r) => r.finiteDirection === finiteAlong);
+  const count = gap && ribbon ? ribbon.counts.find((c) => sameLabel(c.gap, gap.label) && c.edge === end) : undefined;
+  const certificate = emptyCertificate('ribbon');
+  const gaps = [gapEvidence(p, label, policy)];
+  certificate.gaps = gaps;
+  const reasons: string[] = [];
+  if (!ribbon) reasons.push(`no ribbon finite along a${finiteAlong === 0 ? '₁' : '₂'} was computed`);
+  else {
+    certificate.grid = [ribbon.width, ribbon.momenta.length];
+    if (!count) reasons.push(`the ribbon spectrum has no count for this gap on the ${end} edge`);
+    else {
+      certificate.notes.push(`decay length ≈ ${count.decayLength.toPrecision(3)} cells, ribbon width ${count.width} cells, ${count.crossings.length} edge crossing(s)`);
+      if (!count.settled || count.count === null) reasons.push(count.reason ?? 'the edge count is unsettled (ribbon too narrow for the decay length)');
+    }
+  }
+  for (const g of gaps) if (!g.open) reasons.push(`the bulk gap at ${formatQuasienergy(g.gap)} is ${g.minimalGap.toPrecision(3)} π/T, not above the tolerance ${g.tolerance.toPrecision(3)} π/T`);
+  certificate.notes.push(...reasons);
+  const nearest = count?.count ?? null;
+  const settled = reasons.length === 0 && nearest !== null;
+  if (nearest !== null) certificate.raw = nearest;
+  return { value: settled ? nearest : null, nearest, settled, reasons, certificate };
+}
+
+export interface SheetJudgement {
+  verdicts: Verdict[];
+  entries: PortraitEntry[];
+}
+
+/** A computed invariant, claimed or not: the model's "portrait" as the site lists it. */
+export interface PortraitEntry {
+  id: string;
+  quantity: 'winding' | 'chern' | 'edge-modes' | 'minimal-gap' | 'gap-invariant' | 'end-modes' | 'frame-winding';
+  gap: number | null;
+  /** Human description, e.g. "winding W at ε = π/T". */
+  label: string;
+  value: number | null;
+  estimate: number | null;
+  settled: boolean;
+  claimed: boolean;
+  certificate: SettledInteger['certificate'];
+}
+
+export function judgeSheet(p: SheetPortrait, claims: NormalizedClaim[], policy: VerdictPolicy): SheetJudgement {
+  const verdicts: Verdict[] = [];
+  const gapLabels = p.gaps.map((g) => g.label);
+  const windings = new Map(gapLabels.map((l) => [l, windingEvidence(p, l, policy)]));
+  const otherGaps = (label: number, values: (l: number) => number | null): Alternative[] =>
+    gapLabels
+      .filter((l) => !sameLabel(l, label))
+      .flatMap((l) => {
+        const v = values(l);
+        return v === null ? [] : [{ value: v, hint: `this value belongs to the gap at ${formatQuasienergy(l)}` }];
+      });
+
+  for (const claim of claims) {
+    switch (claim.kind) {
+      case 'winding': {
+        const ev = windingEvidence(p, claim.gap, policy);
+        const alternatives: Alternative[] = [];
+        if (ev.value) alternatives.push({ value: -ev.value, hint: SIGN_HINT_ORIENTATION });
+        alternatives.push(...otherGaps(claim.gap, (l) => windings.get(l)?.value ?? null));
+        verdicts.push(integerVerdict(claim, claim.gap, `The winding number W at ${formatQuasienergy(claim.gap)}`, ev, alternatives));
+        break;
+      }
+      case 'edge-modes': {
+        const ev = edgeEvidence(p, claim.gap, claim.finiteAlong, claim.end, policy);
+        const alternatives: Alternative[] = [];
+        if (ev.value) alternatives.push({ value: -ev.value, hint: SIGN_HINT_EDGE });
+        const other = claim.end === 'low' ? 'high' : 'low';
+        const otherEdge = edgeEvidence(p, claim.gap, claim.finiteAlong, other, policy).value;
+        if (otherEdge !== null) alternatives.push({ value: otherEdge, hint: `this value belongs to the ${other} edge of the same ribbon` });
+        alternatives.push(...otherGaps(claim.gap, (l) => edgeEvidence(p, l, claim.finiteAlong, claim.end, policy).value));
+        const what = `The signed edge count on the ${claim.end} edge (ribbon finite along a${claim.finiteAlong === 0 ? '₁' : '₂'}) at ${formatQuasienergy(claim.gap)}`;
+        verdicts.push(integerVerdict(claim, claim.gap, what, ev, alternatives));
+        break;
+      }
+      case 'chern': {
+        const ordered = bandsFromCut(p.bands, claim.cut);
+        const band = ordered?.[claim.band];
+        if (!band) {
+          const certificate = emptyCertificate('chern');
+          const why = ordered
+            ? `only ${ordered.length} band group(s) lie between open gaps above the cut at ${formatQuasienergy(claim.cut)} (bands that touch count as one group)`
+            : `no open gap was found at the cut ${formatQuasienergy(claim.cut)}`;
+          certificate.notes.push(why);
+          verdicts.push({
+            claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.cut, outcome: 'unsettled', claimed: claim.value,
+            computed: null, estimate: null, message: `The Chern number of band ${claim.band} above the cut is ill-defined: ${why}.`,
+            hint: 'check claims.bands.cut and that the claimed bands are separated by open gaps', certificate,
+          });
+          break;
+        }
+        const ev = chernEvidence(p, band, policy);
+        const alternatives: Alternative[] = [];
+        if (ev.value) alternatives.push({ value: -ev.value, hint: SIGN_HINT_ORIENTATION });
+        ordered!.forEach((b, i) => {
+          if (i === claim.band) return;
+          const v = chernEvidence(p, b, policy).value;
+          if (v !== null) alternatives.push({ value: v, hint: `this value belongs to band ${i} above the cut (quasienergies ${b.range[0].toFixed(3)} to ${b.range[1].toFixed(3)} π/T)` });
+        });
+        verdicts.push(integerVerdict(claim, claim.cut, `The Chern number of band ${claim.band} above the cut at ${formatQuasienergy(claim.cut)}`, ev, alternatives));
+        break;
+      }
+      case 'minimal-gap':
+        verdicts.push(minimalGapVerdict(claim, gapEvidence(p, claim.gap, policy)));
+        break;
+      default:
+        verdicts.push(notApplicable(claim, 'a two-dimensional model'));
+    }
+  }
+
+  const claimedIds = new Set(claims.map((c) => c.id));
+  const entries: PortraitEntry[] = [];
+  for (const [label, ev] of windings) {
+    const id = `gap-${gapKey(label)}/winding`;
+    entries.push(entry(id, 'winding', label, `winding W at ${formatQuasienergy(label)}`, ev, claimedIds.has(id)));
+  }
+  for (const b of p.bands) {
+    if (!b.chern) continue;
+    const id = `band-${b.index}/chern`;
+    const claimed = claims.some((c) => c.kind === 'chern' && bandsFromCut(p.bands, c.cut)?.[c.band] === b);
+    entries.push(entry(id, 'chern', null, `Chern number of band ${b.index} (${b.range[0].toFixed(3)} to ${b.range[1].toFixed(3)} π/T)`, chernEvidence(p, b, policy), claimed));
+  }
+  for (const r of p.ribbons) {
+    for (const c of r.counts) {
+      const id = `gap-${gapKey(c.gap)}/edge-${r.finiteDirection}-${c.edge}`;
+      const ev = edgeEvidence(p, c.gap, r.finiteDirection, c.edge, policy);
+      entries.push(entry(id, 'edge-modes', c.gap, `edge count on the ${c.edge} edge (finite along a${r.finiteDirection === 0 ? '₁' : '₂'}) at ${formatQuasienergy(c.gap)}`, ev, claimedIds.has(id)));
+    }
+  }
+  return { verdicts, entries };
+}
+
+export function entry(id: string, quantity: PortraitEntry['quantity'], gap: number | null, label: string, ev: SettledInteger, claimed: boolean): PortraitEntry {
+  return { id, quantity, gap, label, value: ev.value, estimate: ev.nearest, settled: ev.settled, claimed, certificate: ev.certificate };
+}
+
+/**
+ * A claimed minimal gap is a number, not an integer: confirmed when the
+ * computed gap is open and within 10 % (relative) or the gap tolerance of the claim.
+ */
+export function minimalGapVerdict(claim: NormalizedClaim & { kind: 'minimal-gap' }, g: GapEvidence): Verdict {
+  const certificate = emptyCertificate('gaps');
+  certificate.gaps = [g];
+  certificate.raw = g.minimalGap;
+  const tolerance = Math.max(0.1 * claim.value, g.tolerance);
+  certificate.residual = Math.abs(g.minimalGap - claim.value);
+  certificate.residualTolerance = tolerance;
+  const base = { claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.gap, claimed: claim.value, estimate: g.minimalGap, certificate };
+  const what = `The minimal gap at ${formatQuasienergy(claim.gap)}`;
+  if (!g.open && claim.value > g.tolerance && g.minimalGap <= g.tolerance) {
+    return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is closed (${g.minimalGap.toPrecision(3)} π/T), but the file claims ${claim.value} π/T.`, hint: 'the parameter point may lie on a phase boundary' };
+  }
+  if (certificate.residual <= tolerance) {
+    return { ...base, outcome: 'confirmed', computed: g.minimalGap, message: `${what} is ${g.minimalGap.toPrecision(4)} π/T, within ${tolerance.toPrecision(3)} of the claimed ${claim.value} π/T.`, hint: null };
+  }
+  return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is ${g.minimalGap.toPrecision(4)} π/T, but the file claims ${claim.value} π/T (tolerance ${tolerance.toPrecision(3)}).`, hint: null };
+}
+
+export function notApplicable(claim: NormalizedClaim, where: string): Verdict {
+  const certificate = emptyCertificate('none');
+  certificate.notes.push(`a ${claim.kind} claim is not defined for ${where}`);
+  return {
+    claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: 'gap' in claim ? claim.gap : null, outcome: 'unsettled',
+    claimed: claim.value, computed: null, estimate: null, message: `This claim (${claim.kind}) is ill-defined for ${where}.`,
+    hint: claim.kind === 'winding' || claim.kind === 'edge-modes' || claim.kind === 'chern' ? 'use invariant and endModes for chains' : 'use winding, edgeModes and bands for sheets',
+    certificate,
+  };
+}

@@ -1,0 +1,86 @@
+/**
+ * Verdicts: what the recomputation says about one claim.
+ *
+ *   confirmed    — the computed value is settled (see evidence.ts) and equals the claim;
+ *   contradicted — the computed value is settled and differs from the claim;
+ *   unsettled    — the evidence is too weak either way (gap closed or below
+ *                  tolerance, refinement not converged, ribbon too narrow,
+ *                  quantity ill-defined). A claim is never contradicted on
+ *                  unsettled evidence, nor confirmed by luck.
+ */
+import type { Certificate } from './certificate.ts';
+import type { NormalizedClaim } from './claims.ts';
+import type { SettledInteger } from './evidence.ts';
+
+export type VerdictOutcome = 'confirmed' | 'contradicted' | 'unsettled';
+
+export interface Verdict {
+  /** Claim id within the model, e.g. "gap-1/winding". */
+  claim: string;
+  kind: NormalizedClaim['kind'];
+  /** JSON pointer of the claimed value in the model file. */
+  pointer: string;
+  /** Gap label (units π/T) the claim is about, when it is about a gap. */
+  gap: number | null;
+  outcome: VerdictOutcome;
+  claimed: number | boolean;
+  /** Settled computed value; null when unsettled. */
+  computed: number | boolean | null;
+  /** The nearest integer or value computed even when unsettled (for display), else null. */
+  estimate: number | boolean | null;
+  /** One plain sentence: what was found. */
+  message: string;
+  /** A likely cause or next step, when one is recognisable. */
+  hint: string | null;
+  certificate: Certificate;
+}
+
+/** A value the claim may have been meant as, with the words that explain it. */
+export interface Alternative {
+  value: number;
+  /** Full hint sentence, e.g. "this value belongs to the gap at ε = 0". */
+  hint: string;
+}
+
+export function integerVerdict(
+  claim: NormalizedClaim & { value: number },
+  gap: number | null,
+  what: string,
+  evidence: SettledInteger,
+  alternatives: Alternative[],
+): Verdict {
+  const base = { claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap, claimed: claim.value, certificate: evidence.certificate };
+  if (!evidence.settled || evidence.value === null) {
+    const estimate = evidence.nearest;
+    const seen = estimate === null ? '' : ` (nearest integer on the last grid: ${estimate})`;
+    return {
+      ...base,
+      outcome: 'unsettled',
+      computed: null,
+      estimate,
+      message: `${what} could not be settled${seen}: ${evidence.reasons.join('; ')}.`,
+      hint: unsettledHint(evidence.reasons),
+    };
+  }
+  const computed = evidence.value;
+  if (computed === claim.value) {
+    return { ...base, outcome: 'confirmed', computed, estimate: computed, message: `${what} is ${computed}, as claimed.`, hint: null };
+  }
+  const match = alternatives.find((a) => a.value === claim.value);
+  return {
+    ...base,
+    outcome: 'contradicted',
+    computed,
+    estimate: computed,
+    message: `${what} is ${computed}, but the file claims ${claim.value}.`,
+    hint: match ? match.hint : null,
+  };
+}
+
+function unsettledHint(reasons: string[]): string | null {
+  const text = reasons.join(' ');
+  if (/gap at/.test(text)) return 'the model may sit at or near a phase transition; move the parameter point away from it or raise numerics.kGrid';
+  if (/ribbon/.test(text)) return 'widen the ribbon (numerics.ribbon.width) well beyond the edge-state decay length';
+  if (/refinement|tolerance|single grid/.test(text)) return 'raise numerics.kGrid or numerics.timeSlices so that refinement can settle the integer';
+  return null;
+}

@@ -1,0 +1,135 @@
+/**
+ * LU decomposition with partial (row) pivoting, P A = L U, for complex square
+ * matrices (Doolittle form, common practice: Golub & Van Loan, Matrix
+ * Computations, §3.4). L has a unit diagonal; both factors share one array.
+ *
+ * `singular` is true when a pivot is numerically zero, |u_kk| ≤ n·ε·max|A_ij|
+ * (ε = 2⁻⁵²): the factorisation then exists but solves would amplify rounding
+ * beyond any meaning, so `solve` refuses.
+ */
+import type { Complex, ComplexMatrix } from './complex-matrix.ts';
+import { maxAbs, zeros } from './complex-matrix.ts';
+import { assertSquareFinite, MatrixInputError } from './checks.ts';
+
+export class LuDecomposition {
+  readonly singular: boolean;
+  readonly determinant: Complex;
+  /** Row permutation: row i of P A is row pivot[i] of A. */
+  readonly pivot: Int32Array;
+  private readonly lu: ComplexMatrix;
+  private readonly smallestPivot: number;
+
+  constructor(a: ComplexMatrix) {
+    assertSquareFinite('LuDecomposition', a);
+    const n = a.rows;
+    const lu = { rows: n, cols: n, re: a.re.slice(), im: a.im.slice() };
+    const r = lu.re, im = lu.im;
+    const pivot = new Int32Array(n);
+    for (let i = 0; i < n; i++) pivot[i] = i;
+    const threshold = n * 2 ** -52 * maxAbs(a);
+    let detRe = 1, detIm = 0;
+    let smallest = Infinity;
+    for (let k = 0; k < n; k++) {
+      let p = k, best = -1;
+      for (let i = k; i < n; i++) {
+        const v = Math.hypot(r[i * n + k], im[i * n + k]);
+        if (v > best) {
+          best = v;
+          p = i;
+        }
+      }
+      if (p !== k) {
+        for (let j = 0; j < n; j++) {
+          const s = k * n + j, t = p * n + j;
+          let x = r[s]; r[s] = r[t]; r[t] = x;
+          x = im[s]; im[s] = im[t]; im[t] = x;
+        }
+        const x = pivot[k]; pivot[k] = pivot[p]; pivot[p] = x;
+        detRe = -detRe;
+        detIm = -detIm;
+      }
+      const ur = r[k * n + k], ui = im[k * n + k];
+      smallest = Math.min(smallest, best);
+      const nr = detRe * ur - detIm * ui;
+      detIm = detRe * ui + detIm * ur;
+      detRe = nr;
+      if (best === 0) continue;
+      const den = ur * ur + ui * ui;
+      const invr = ur / den, invi = -ui / den;
+      for (let i = k + 1; i < n; i++) {
+        const q = i * n + k;
+        const lr = r[q] * invr - im[q] * invi;
+        const li = r[q] * invi + im[q] * invr;
+        r[q] = lr;
+        im[q] = li;
+        if (lr === 0 && li === 0) continue;
+        const ri = i * n, rk = k * n;
+        for (let j = k + 1; j < n; j++) {
+          const xr = r[rk + j], xi = im[rk + j];
+          r[ri + j] -= lr * xr - li * xi;
+          im[ri + j] -= lr * xi + li * xr;
+        }
+      }
+    }
+    this.lu = lu;
+    this.pivot = pivot;
+    this.smallestPivot = n === 0 ? Infinity : smallest;
+    this.singular = n > 0 && smallest <= threshold;
+    this.determinant = { re: detRe, im: detIm };
+  }
+
+  /** X with A X = B (B has n rows, any number of columns). */
+  solve(b: ComplexMatrix): ComplexMatrix {
+    const n = this.lu.rows;
+    if (b.rows !== n) throw new MatrixInputError('LuDecomposition.solve', `right-hand side has ${b.rows} rows, the matrix is ${n}×${n}`);
+    if (this.singular) {
+      throw new MatrixInputError(
+        'LuDecomposition.solve',
+        `matrix is numerically singular (smallest pivot ${this.smallestPivot.toExponential(3)}); the system has no unique solution`,
+      );
+    }
+    const m = b.cols;
+    const x = zeros(n, m);
+    const xr = x.re, xi = x.im, r = this.lu.re, im = this.lu.im;
+    for (let i = 0; i < n; i++) {
+      const src = this.pivot[i] * m;
+      for (let j = 0; j < m; j++) {
+        xr[i * m + j] = b.re[src + j];
+        xi[i * m + j] = b.im[src + j];
+      }
+    }
+    // Forward substitution with unit-diagonal L.
+    for (let k = 0; k < n; k++) {
+      for (let i = k + 1; i < n; i++) {
+        const lr = r[i * n + k], li = im[i * n + k];
+        if (lr === 0 && li === 0) continue;
+        for (let j = 0; j < m; j++) {
+          const yr = xr[k * m + j], yi = xi[k * m + j];
+          xr[i * m + j] -= lr * yr - li * yi;
+          xi[i * m + j] -= lr * yi + li * yr;
+        }
+      }
+    }
+    // Back substitution with U.
+    for (let k = n - 1; k >= 0; k--) {
+      const ur = r[k * n + k], ui = im[k * n + k];
+      const den = ur * ur + ui * ui;
+      const invr = ur / den, invi = -ui / den;
+      for (let j = 0; j < m; j++) {
+        const yr = xr[k * m + j], yi = xi[k * m + j];
+        xr[k * m + j] = yr * invr - yi * invi;
+        xi[k * m + j] = yr * invi + yi * invr;
+      }
+      for (let i = 0; i < k; i++) {
+        const cr = r[i * n + k], ci = im[i * n + k];
+        if (cr === 0 && ci === 0) continue;
+        for (let j = 0; j < m; j++) {
+          const yr = xr[k * m + j], yi = xi[k * m + j];
+          xr[i * m + j] -= cr * yr - ci * yi;
+          xi[i * m + j] -= cr * yi + ci * yr;
+        }
+      }
+    }
+    return x;
+  }
+}

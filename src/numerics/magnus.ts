@@ -1,0 +1,92 @@
+/**
+ * Fourth-order commutator-free Magnus integrator (CF4 with two exponentials):
+ * Blanes & Moan, J. Comput. Appl. Math. 142, 313 (2002) / Alvermann & Fehske,
+ * J. Comput. Phys. 230, 5930 (2011). Over one slice [t, t+h], with Gauss–Legendre
+ * nodes t₁,₂ = t + (1/2 ∓ √3/6) h and H_k = H(t_k),
+ *     U(t+h, t) ≈ exp(−ih(α₁H₁ + α₂H₂)) · exp(−ih(α₂H₁ + α₁H₂)),
+ *     α₁ = (3 − 2√3)/12,  α₂ = (3 + 2√3)/12.
+ * Each factor is the exponential of a Hermitian matrix, so the result is unitary to
+ * rounding whatever the step; the local error is O(h⁵), the global error O(h⁴).
+ */
+import type { ComplexMatrix } from './linalg/complex-matrix.ts';
+import { identity, multiply, zeros } from './linalg/complex-matrix.ts';
+import { expMinusIHt } from './linalg/exponential.ts';
+
+const SQRT3 = Math.sqrt(3);
+export const CF4_NODES: readonly [number, number] = [0.5 - SQRT3 / 6, 0.5 + SQRT3 / 6];
+export const CF4_WEIGHTS: readonly [number, number] = [(3 - 2 * SQRT3) / 12, (3 + 2 * SQRT3) / 12];
+
+/** Writes H(t) into `out` (n×n) and returns it. */
+export type HamiltonianSampler = (t: number, out: ComplexMatrix) => ComplexMatrix;
+
+/** U(t1, t0) with `slices` equal CF4 steps; n is the matrix size. */
+export function magnusCF4(hamiltonian: HamiltonianSampler, size: number, t0: number, t1: number, slices: number): ComplexMatrix {
+  if (!(Number.isInteger(slices) && slices >= 1)) throw new RangeError(`magnusCF4: slice count must be a positive integer, got ${slices}`);
+  if (size === 2) return magnusCF4TwoLevel(hamiltonian, t0, t1, slices);
+  const h = (t1 - t0) / slices;
+  const [c1, c2] = CF4_NODES;
+  const [a1, a2] = CF4_WEIGHTS;
+  const h1 = zeros(size, size), h2 = zeros(size, size), g = zeros(size, size);
+  let u = identity(size);
+  for (let k = 0; k < slices; k++) {
+    const ta = t0 + k * h;
+    hamiltonian(ta + c1 * h, h1);
+    hamiltonian(ta + c2 * h, h2);
+    for (let p = 0; p < g.re.length; p++) {
+      g.re[p] = a2 * h1.re[p] + a1 * h2.re[p];
+      g.im[p] = a2 * h1.im[p] + a1 * h2.im[p];
+    }
+    u = multiply(expMinusIHt(g, h), u);
+    for (let p = 0; p < g.re.length; p++) {
+      g.re[p] = a1 * h1.re[p] + a2 * h2.re[p];
+      g.im[p] = a1 * h1.im[p] + a2 * h2.im[p];
+    }
+    u = multiply(expMinusIHt(g, h), u);
+  }
+  return u;
+}
+
+/**
+ * Allocation-free 2×2 path (two-band models on fine k grids): with
+ * G = g₀ + g·σ, exp(−iGh) = e^{−ig₀h}(cos|g|h − i sin(|g|h) ĝ·σ), multiplied into U in place.
+ */
+function magnusCF4TwoLevel(hamiltonian: HamiltonianSampler, t0: number, t1: number, slices: number): ComplexMatrix {
+  const h = (t1 - t0) / slices;
+  const [c1, c2] = CF4_NODES;
+  const [a1, a2] = CF4_WEIGHTS;
+  const h1 = zeros(2, 2), h2 = zeros(2, 2);
+  const u = identity(2);
+  const ur = u.re, ui = u.im;
+  const apply = (wa: number, wb: number) => {
+    // G = wa H1 + wb H2 = g0 + g·σ
+    const p = wa * h1.re[0] + wb * h2.re[0], q = wa * h1.re[3] + wb * h2.re[3];
+    const g0 = 0.5 * (p + q), gz = 0.5 * (p - q);
+    const gx = wa * 0.5 * (h1.re[2] + h1.re[1]) + wb * 0.5 * (h2.re[2] + h2.re[1]);
+    const gy = wa * 0.5 * (h1.im[2] - h1.im[1]) + wb * 0.5 * (h2.im[2] - h2.im[1]);
+    const r = Math.hypot(gx, gy, gz);
+    const phi = r * h;
+    const c = Math.cos(phi);
+    const s = Math.abs(phi) < 1e-4 ? h * (1 - (phi * phi) / 6) : Math.sin(phi) / r;
+    const er = Math.cos(g0 * h), ei = -Math.sin(g0 * h);
+    // M = e^{−ig₀h} [[c − i s gz, −s gy − i s gx], [s gy − i s gx, c + i s gz]]
+    const m00r = er * c + ei * s * gz, m00i = ei * c - er * s * gz;
+    const m01r = -er * s * gy + ei * s * gx, m01i = -ei * s * gy - er * s * gx;
+    const m10r = er * s * gy + ei * s * gx, m10i = ei * s * gy - er * s * gx;
+    const m11r = er * c - ei * s * gz, m11i = ei * c + er * s * gz;
+    for (let col = 0; col < 2; col++) {
+      const xr = ur[col], xi = ui[col], yr = ur[2 + col], yi = ui[2 + col];
+      ur[col] = m00r * xr - m00i * xi + m01r * yr - m01i * yi;
+      ui[col] = m00r * xi + m00i * xr + m01r * yi + m01i * yr;
+      ur[2 + col] = m10r * xr - m10i * xi + m11r * yr - m11i * yi;
+      ui[2 + col] = m10r * xi + m10i * xr + m11r * yi + m11i * yr;
+    }
+  };
+  for (let k = 0; k < slices; k++) {
+    const ta = t0 + k * h;
+    hamiltonian(ta + c1 * h, h1);
+    hamiltonian(ta + c2 * h, h2);
+    apply(a2, a1);
+    apply(a1, a2);
+  }
+  return u;
+}

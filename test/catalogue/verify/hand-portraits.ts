@@ -1,0 +1,80 @@
+/**
+ * Hand-made engine results for testing the verdict logic without running the
+ * engines. Values follow published results (cited where used), not our code.
+ */
+import type { IntegerEstimate } from '../../../src/numerics/certificates.ts';
+import type { ChernEstimate, SheetPortrait } from '../../../src/numerics/portrait.ts';
+
+/** An integer estimate refined over two grids, converging to `value` with residual `residual`. */
+export function estimate(value: number, options: { residual?: number; coarse?: number; tolerance?: number; converged?: boolean; caveat?: string } = {}): IntegerEstimate {
+  const residual = options.residual ?? 1e-9;
+  const raw = value + residual;
+  const coarse = options.coarse ?? value + 10 * residual;
+  const tolerance = options.tolerance ?? 0.01;
+  const e: IntegerEstimate = {
+    raw,
+    nearest: Math.round(raw),
+    residual: Math.abs(raw - Math.round(raw)),
+    tolerance,
+    converged: options.converged ?? Math.abs(raw - Math.round(raw)) <= tolerance,
+    grid: [48, 48],
+    history: [
+      { grid: [24, 24], value: coarse },
+      { grid: [48, 48], value: raw },
+    ],
+  };
+  if (options.caveat) e.caveat = options.caveat;
+  return e;
+}
+
+export function chernEstimate(value: number): ChernEstimate {
+  return { ...estimate(value), maxPlaquetteFlux: 0.2, fluxThreshold: Math.PI / 3, minimalLinkModulus: 0.9 };
+}
+
+/**
+ * Two bands separated by gaps at 0 and π/T, as for the five-step checkerboard drive of
+ * Rudner, Lindner, Berg, Levin, PRX 3, 031005 (2013) (from memory): at full transfer both
+ * bands have C = 0 and both gaps W = 1, with one chiral mode per gap on each edge.
+ */
+export function twoBandSheet(o: { c?: [number, number]; w?: [number, number]; gap0?: number; gapPi?: number; width?: number; grid?: number } = {}): SheetPortrait {
+  const c = o.c ?? [0, 0];
+  const w = o.w ?? [1, 1];
+  const gap0 = o.gap0 ?? 0.6;
+  const gapPi = o.gapPi ?? 0.6;
+  const half = (o.width ?? 0.2) / 2;
+  const grid = o.grid ?? 48;
+  const edge = (gap: number, edge: 'low' | 'high', count: number) => ({
+    gap, edge, count, crossings: [{ momentum: 0.5, direction: (count >= 0 ? 1 : -1) as 1 | -1, weight: 0.9 }],
+    decayLength: 1.5, width: 40, settled: true,
+  });
+  return {
+    kind: 'sheet',
+    grid: [grid, grid],
+    gaps: [
+      { label: 0, lower: -gap0 / 2, upper: gap0 / 2, minimalGap: gap0, momentumAtMinimum: [0, 0], open: gap0 > 1e-3, arcWidth: gap0 },
+      { label: 1, lower: 1 - gapPi / 2, upper: -1 + gapPi / 2, minimalGap: gapPi, momentumAtMinimum: [0.5, 0.5], open: gapPi > 1e-3, arcWidth: gapPi },
+    ],
+    bands: [
+      { index: 0, branches: 1, gapBelow: 0, gapAbove: 1, range: [0.5 - half, 0.5 + half], minimalInternalGap: Infinity, touching: false, chern: chernEstimate(c[0]) },
+      { index: 1, branches: 1, gapBelow: 1, gapAbove: 0, range: [-0.5 - half, -0.5 + half], minimalInternalGap: Infinity, touching: false, chern: chernEstimate(c[1]) },
+    ],
+    windings: [
+      { gap: 0, winding: estimate(w[0]) },
+      { gap: 1, winding: estimate(w[1]) },
+    ],
+    ribbons: [
+      {
+        finiteDirection: 1, width: 40, edgeCells: 4, momenta: [0, 0.25, 0.5, 0.75], quasienergies: [[-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5]],
+        lowEdgeWeight: [[0, 0], [0, 0], [0, 0], [0, 0]], highEdgeWeight: [[0, 0], [0, 0], [0, 0], [0, 0]],
+        counts: [edge(0, 'low', w[0]), edge(0, 'high', -w[0]), edge(1, 'low', w[1]), edge(1, 'high', -w[1])],
+      },
+    ],
+    consistency: [],
+    propagatorAccuracy: 1e-10,
+    gapTolerance: 1e-3,
+    cut: 0,
+    eigenResidual: 1e-14,
+    floquetEvaluations: 2304,
+    timings: { bands: 1, winding: 2, ribbon: 3 },
+  };
+}

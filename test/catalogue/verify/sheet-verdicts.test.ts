@@ -1,0 +1,80 @@
+import { describe, expect, it } from 'vitest';
+import { judgeSheet } from '../../../src/catalogue/verify/sheet-verdicts.ts';
+import { DEFAULT_POLICY } from '../../../src/catalogue/verify/policy.ts';
+import { classifySheet } from '../../../src/catalogue/verify/anomalous.ts';
+import { modelStatus } from '../../../src/catalogue/verify/status.ts';
+import type { NormalizedClaim } from '../../../src/catalogue/verify/claims.ts';
+import { estimate, twoBandSheet } from './hand-portraits.ts';
+
+const winding = (gap: number, value: number): NormalizedClaim => ({ kind: 'winding', id: `gap-${gap}/winding`, pointer: `/claims/gaps/${gap}/winding`, gap, value });
+const chern = (band: number, value: number): NormalizedClaim => ({ kind: 'chern', id: `band-${band}/chern`, pointer: `/claims/bands/chern/${band}`, cut: 0, band, value });
+const edge = (gap: number, end: 'low' | 'high', value: number): NormalizedClaim => ({
+  kind: 'edge-modes', id: `gap-${gap}/edge-1-${end}`, pointer: '/x', gap, finiteAlong: 1, end, value,
+});
+
+describe('verdicts on a two-dimensional portrait', () => {
+  it('confirms claims that match settled values (Rudner et al. 2013 anomalous phase: C = 0, W = 1 in both gaps)', () => {
+    const { verdicts } = judgeSheet(twoBandSheet(), [winding(0, 1), winding(1, 1), chern(0, 0), chern(1, 0), edge(1, 'low', 1)], DEFAULT_POLICY);
+    expect(verdicts.map((v) => v.outcome)).toEqual(['confirmed', 'confirmed', 'confirmed', 'confirmed', 'confirmed']);
+    expect(verdicts[0].certificate.gaps[0]).toMatchObject({ gap: 0, minimalGap: 0.6, open: true });
+    expect(verdicts[0].certificate.refinement.map((s) => s.grid)).toEqual([[24, 24], [48, 48]]);
+    expect(modelStatus(verdicts).status).toBe('verified');
+  });
+
+  it('contradicts a flipped sign and says to check the orientation', () => {
+    const { verdicts } = judgeSheet(twoBandSheet(), [winding(0, -1), edge(0, 'low', -1)], DEFAULT_POLICY);
+    expect(verdicts[0]).toMatchObject({ outcome: 'contradicted', claimed: -1, computed: 1 });
+    expect(verdicts[0].hint).toMatch(/^sign differs: check the orientation of \(a₁, a₂\)/);
+    expect(verdicts[1].hint).toBe('sign differs: check the orientation of (a₁, a₂) or the direction of k_∥');
+    expect(modelStatus(verdicts).status).toBe('disputed');
+  });
+
+  it('recognises a value that belongs to the other gap', () => {
+    // Haldane-like Chern phase as a drive: C = (−1, +1) upward from the 0 gap gives W(π) − W(0) = C₀ = −1.
+    const p = twoBandSheet({ c: [-1, 1], w: [1, 0] });
+    const { verdicts } = judgeSheet(p, [winding(1, 1)], DEFAULT_POLICY);
+    expect(verdicts[0]).toMatchObject({ outcome: 'contradicted', computed: 0, hint: 'this value belongs to the gap at ε = 0' });
+    const bands = judgeSheet(p, [chern(0, 1)], DEFAULT_POLICY).verdicts[0];
+    // +1 is both minus the computed value and band 1's value; the sign explanation comes first.
+    expect(bands.hint).toMatch(/^sign differs/);
+  });
+
+  it('never confirms on a gap below the velocity-scaled tolerance, even when the engine calls it open', () => {
+    // Tolerance = max(1e-3, 0.5 · π · width / N): width 0.8, N = 24 gives 0.5·π·0.8/24 ≈ 0.0524 π/T.
+    const p = twoBandSheet({ gap0: 0.04, width: 0.8, grid: 24 });
+    const { verdicts } = judgeSheet(p, [winding(0, 1), winding(1, 1)], DEFAULT_POLICY);
+    expect(verdicts[0].outcome).toBe('unsettled');
+    const tol = verdicts[0].certificate.gaps[0].tolerance;
+    expect(Math.abs(tol - (0.5 * Math.PI * 0.8) / 24)).toBeLessThan(1e-12);
+    expect(verdicts[0].message).toMatch(/not above the tolerance 0\.0524 π\/T/);
+    expect(verdicts[0].hint).toMatch(/phase transition/);
+    // The π gap (0.6 ≫ 0.0524) is still settled.
+    expect(verdicts[1].outcome).toBe('confirmed');
+    expect(modelStatus(verdicts).status).toBe('unsettled');
+  });
+
+  it('is unsettled, not contradicted, when the gap is closed or the integer moves under refinement', () => {
+    const closed = judgeSheet(twoBandSheet({ gap0: 0 }), [winding(0, 5)], DEFAULT_POLICY).verdicts[0];
+    expect(closed.outcome).toBe('unsettled');
+    const p = twoBandSheet();
+    p.windings[0].winding = estimate(1, { coarse: 0.2 });
+    const moving = judgeSheet(p, [winding(0, 1)], DEFAULT_POLICY).verdicts[0];
+    expect(moving.outcome).toBe('unsettled');
+    expect(moving.message).toMatch(/changed under the last refinement \(0 on 24×24, 1 on 48×48\)/);
+    p.windings[0].winding = estimate(1, { residual: 0.2 });
+    expect(judgeSheet(p, [winding(0, 1)], DEFAULT_POLICY).verdicts[0].message).toMatch(/\|x − round x\| = 0\.200 exceeds the tolerance 0\.0100/);
+  });
+
+  it('lists unclaimed invariants in the portrait and flags the Chern-trivial anomalous phase', () => {
+    const { entries } = judgeSheet(twoBandSheet(), [winding(0, 1)], DEFAULT_POLICY);
+    expect(entries.filter((e) => e.quantity === 'winding').map((e) => [e.id, e.value, e.claimed])).toEqual([
+      ['gap-0/winding', 1, true],
+      ['gap-1/winding', 1, false],
+    ]);
+    expect(classifySheet(entries).classification).toBe('chern-trivial-anomalous');
+    const chernPhase = judgeSheet(twoBandSheet({ c: [-1, 1], w: [1, 0] }), [], DEFAULT_POLICY).entries;
+    expect(classifySheet(chernPhase)).toMatchObject({ classification: 'not-anomalous', reason: 'winding W at ε = π/T is 0' });
+    const nearCritical = judgeSheet(twoBandSheet({ gap0: 0 }), [], DEFAULT_POLICY).entries;
+    expect(classifySheet(nearCritical).classification).toBe('undetermined');
+  });
+});
