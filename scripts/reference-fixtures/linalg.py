@@ -33,6 +33,10 @@ def main():
     for n in (3, 8, 20, 45):
         h = random_hermitian(rng, n)
         hermitian.append({"name": f"random-hermitian-{n}", "matrix": split(h), "eigenvalues": np.linalg.eigvalsh(h).tolist()})
+    # Wilkinson's W21+ (tridiagonal, diagonal |10 - i|, off-diagonal 1): nearly
+    # degenerate eigenvalue pairs, a classic test of symmetric eigensolvers.
+    w = np.diag(np.abs(np.arange(21) - 10.0)) + np.diag(np.ones(20), 1) + np.diag(np.ones(20), -1)
+    hermitian.append({"name": "wilkinson-w21plus", "matrix": split(w), "eigenvalues": np.linalg.eigvalsh(w).tolist()})
     exponential = []
     for n, t in ((2, 0.7), (4, 1.3), (9, -2.1), (16, 5.0)):
         h = random_hermitian(rng, n)

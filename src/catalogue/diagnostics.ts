@@ -96,7 +96,10 @@ export function closestName(name: string, candidates: Iterable<string>): string 
     }
   }
   const limit = Math.max(1, Math.floor(name.length / 3));
-  return bestDistance <= limit ? best : undefined;
+  if (bestDistance <= limit) return best;
+  // A truncated name ("descr" for "description") is a likely slip too.
+  if (name.length >= 3) return [...candidates].find((c) => c.toLowerCase().startsWith(name.toLowerCase()));
+  return undefined;
 }
 
 /** "did you mean 'x'?" when a close candidate exists, else "<what> are a, b, c". */

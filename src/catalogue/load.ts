@@ -142,7 +142,8 @@ export function checkModelSource(file: string, source: string): { model?: Loaded
   const { document: positioned, problems } = parseWithPositions(text);
   if (problems.length > 0) {
     return {
-      diagnostics: problems.slice(0, 5).map((p) => {
+      // One message per place: a single fault often trips several parser rules.
+      diagnostics: problems.filter((p, i) => i === 0 || p.offset !== problems[i - 1].offset).slice(0, 5).map((p) => {
         const { line, column } = positionOf(positioned, p.offset);
         const d: Diagnostic = { file, line, column, pointer: '', message: p.message, severity: 'error' };
         if (p.hint !== undefined) d.hint = p.hint;
@@ -166,7 +167,7 @@ export function checkModelSource(file: string, source: string): { model?: Loaded
     const semantic = checkSemantics(doc, table.values, declared);
     issues.push(...semantic.issues);
     for (const name of declared) {
-      if (!semantic.usedParameters.has(name)) {
+      if (!semantic.usedParameters.has(name) && !table.issues.some((i) => i.pointer === `/parameters/${name}` && i.target === 'key')) {
         issues.push({ pointer: `/parameters/${name}`, target: 'key', severity: 'warning', message: `parameter "${name}" is never used`, hint: 'remove it or refer to it' });
       }
     }

@@ -82,8 +82,8 @@ function describeBranch(branch: SchemaNode): string {
 /** First sentence of a schema description, for hints. */
 function firstSentence(text: unknown): string | undefined {
   if (typeof text !== 'string') return undefined;
-  const m = /^(.*?[.])(\s|$)/.exec(text);
-  return (m ? m[1] : text).replace(/\.$/, '');
+  const m = /^(.*?)[.](?:\s+(?=[A-Z])|$)/.exec(text);
+  return m ? m[1] : text;
 }
 
 /**
@@ -95,37 +95,53 @@ export function describeSchemaErrors(errors: readonly ErrorObject[]): Issue[] {
   const issues: Issue[] = [];
   const suppressed = new Set<ErrorObject>();
 
-  for (const error of errors) {
-    if (error.keyword !== 'anyOf' && error.keyword !== 'oneOf') continue;
+  errors.forEach((error, index) => {
+    if (error.keyword !== 'anyOf' && error.keyword !== 'oneOf') return;
     const prefix = error.schemaPath + '/';
-    const branchErrors = errors.filter((e) => e !== error && e.schemaPath.startsWith(prefix));
+    const at = error.instancePath;
+    // Ajv reports the failed alternatives just before the anyOf error itself, on the
+    // same value or inside it; alternatives behind a $ref carry the referenced
+    // schema's path, so they are found by position, not by schema path.
+    const branchErrors: ErrorObject[] = [];
+    for (let j = index - 1; j >= 0; j--) {
+      const e = errors[j];
+      if (suppressed.has(e) || !(e.instancePath === at || e.instancePath.startsWith(at + '/'))) break;
+      branchErrors.push(e);
+    }
     const branches = error.schema as SchemaNode[];
-    const applicable = branches
-      .map((_, i) => i)
-      .filter((i) => !branchErrors.some((e) => e.schemaPath.startsWith(`${prefix}${i}/`) && e.keyword === 'type' && e.instancePath === error.instancePath) &&
-        !branchErrors.some((e) => e.schemaPath.startsWith(`${prefix}${i}/`) && e.keyword === '$ref'));
-    const refBranches = branches.map((b, i) => (typeof b.$ref === 'string' && /quantity$/.test(b.$ref) ? i : -1)).filter((i) => i >= 0);
-    const quantityApplies = typeof error.data === 'number' || typeof error.data === 'string';
+    const refBranches = branches.map((b, i) => (typeof b.$ref === 'string' ? i : -1)).filter((i) => i >= 0);
+    const branchOf = (e: ErrorObject): number => {
+      const m = e.schemaPath.startsWith(prefix) ? /^(\d+)\//.exec(e.schemaPath.slice(prefix.length)) : null;
+      return m ? Number(m[1]) : refBranches.length === 1 ? refBranches[0] : -1;
+    };
+    const quantityBranch = branches.findIndex((b) => typeof b.$ref === 'string' && /quantity$/.test(b.$ref));
     let keep: number | undefined;
-    if (quantityApplies && refBranches.length === 1) keep = refBranches[0];
-    else if (!quantityApplies) {
-      const objectBranches = applicable.filter((i) => !refBranches.includes(i));
-      if (objectBranches.length === 1) keep = objectBranches[0];
-    }
-    for (const e of branchErrors) if (keep === undefined || !e.schemaPath.startsWith(`${prefix}${keep}/`)) suppressed.add(e);
-    if (keep !== undefined) suppressed.add(error);
-    else if (branches.every((b) => Object.keys(b).length === 1 && Array.isArray(b.required))) {
-      const names = branches.map((b) => `"${(b.required as string[])[0]}"`);
-      issues.push({ pointer: error.instancePath, message: `needs at least one of ${names.join(', ')}` });
-      suppressed.add(error);
+    if (typeof error.data === 'number' || typeof error.data === 'string') {
+      if (quantityBranch >= 0) keep = quantityBranch;
     } else {
-      issues.push({
-        pointer: error.instancePath,
-        message: `expected ${branches.map(describeBranch).join(', or ')}; found ${typeOf(error.data)}`,
+      // Alternatives that accept this JSON type: those without a type error on the value itself.
+      const applicable = branches
+        .map((_, i) => i)
+        .filter((i) => i !== quantityBranch && !branchErrors.some((e) => branchOf(e) === i && e.keyword === 'type' && e.instancePath === at));
+      // Among several object shapes, prefer the one whose property names the value uses.
+      const data = error.data;
+      const sharing = applicable.filter((i) => {
+        const properties = Object.keys((branches[i].properties as Record<string, unknown> | undefined) ?? {});
+        return data !== null && typeof data === 'object' && Object.keys(data).some((k) => properties.includes(k));
       });
-      suppressed.add(error);
+      if (applicable.length === 1) keep = applicable[0];
+      else if (sharing.length === 1) keep = sharing[0];
     }
-  }
+    for (const e of branchErrors) if (keep === undefined || branchOf(e) !== keep) suppressed.add(e);
+    suppressed.add(error);
+    if (keep !== undefined) return;
+    if (branches.every((b) => Object.keys(b).length === 1 && Array.isArray(b.required))) {
+      const names = branches.map((b) => `"${(b.required as string[])[0]}"`);
+      issues.push({ pointer: at, message: `needs at least one of ${names.join(', ')}` });
+    } else {
+      issues.push({ pointer: at, message: `expected ${branches.map(describeBranch).join(', or ')}; found ${typeOf(error.data)}` });
+    }
+  });
 
   for (const error of errors) {
     if (suppressed.has(error)) continue;
@@ -167,6 +183,9 @@ export function describeSchemaError(error: ErrorObject): Issue | undefined {
     case 'const':
       return { pointer: at, message: `must be ${JSON.stringify(params.allowedValue)}; found ${JSON.stringify(error.data)}` };
     case 'pattern': {
+      if (error.propertyName !== undefined) {
+        return { pointer: joinPointer(at, error.propertyName), target: 'key', message: `name "${error.propertyName}" is not allowed here`, hint: 'names start with a letter, followed by letters, digits or underscores' };
+      }
       const what = firstSentence(parent.description);
       return { pointer: at, message: `${JSON.stringify(error.data)} is not in the expected form`, hint: what ?? `expected to match ${String(params.pattern)}` };
     }

@@ -49,6 +49,12 @@ export interface PreparedBloch {
   segmentAt(segmentIndex: number, t: number, out?: ComplexMatrix): ComplexMatrix;
   /** Index of the segment of positive duration containing t. */
   segmentIndexAt(t: number): number;
+  /**
+   * Sampler over a fixed list of times in segment `segmentIndex`: node j gives H at
+   * times[j]. The momentum-independent factors are computed once per drive and
+   * `tableKey` (same key ⇒ same times), so a k grid pays for them once.
+   */
+  tableSampler(segmentIndex: number, tableKey: string, times: ArrayLike<number>): (node: number, out: ComplexMatrix) => ComplexMatrix;
 }
 
 function describeSegment(drive: LatticeDrive, i: number): string {
@@ -106,31 +112,63 @@ function compileSegment(drive: LatticeDrive, index: number, segment: DriveSegmen
   return { start, duration: segment.duration, terms, potential, constant, fixed: null };
 }
 
-function fillSegment(seg: CompiledSegment, omega: number, t: number, out: ComplexMatrix): ComplexMatrix {
-  const n = out.rows;
-  out.re.fill(0);
-  out.im.fill(0);
+/**
+ * The time-dependent factor g(t) = f(t)·e^{iqA(t)·d} of every term of a segment,
+ * interleaved [re₀, im₀, re₁, im₁, …]. It does not depend on the momentum, so a k
+ * grid evaluated at the same Magnus nodes reuses it: node tables are cached per
+ * drive object (drives are treated as immutable once compiled).
+ */
+function computeTimeFactors(seg: CompiledSegment, omega: number, t: number): Float64Array {
+  const g = new Float64Array(2 * seg.terms.length);
   const dims = seg.potential.length > 0 ? seg.potential[0].amplitude.length : 0;
   const a = new Float64Array(dims);
   for (const c of seg.potential) {
     const w = Math.cos(c.harmonic * omega * t + c.phase);
     for (let k = 0; k < dims; k++) a[k] += c.amplitude[k] * w;
   }
-  for (const term of seg.terms) {
+  seg.terms.forEach((term, j) => {
     const f = modulationValue(term.modulation, omega, t);
+    if (term.onsite || dims === 0) {
+      g[2 * j] = f;
+      return;
+    }
+    let phase = 0;
+    for (let k = 0; k < dims; k++) phase += a[k] * term.qd[k];
+    g[2 * j] = f * Math.cos(phase);
+    g[2 * j + 1] = f * Math.sin(phase);
+  });
+  return g;
+}
+
+const tableCache = new WeakMap<LatticeDrive, Map<string, Float64Array[]>>();
+/** Bound on cached node tables per drive (a full cache is dropped, not grown). */
+const MAX_CACHED_TABLES = 256;
+
+/** Time factors at each of `times` for segment `index`, cached per drive under `key`. */
+function timeFactorTable(drive: LatticeDrive, key: string, seg: CompiledSegment, omega: number, times: ArrayLike<number>): Float64Array[] {
+  let perDrive = tableCache.get(drive);
+  if (perDrive === undefined || perDrive.size >= MAX_CACHED_TABLES) tableCache.set(drive, (perDrive = new Map()));
+  let table = perDrive.get(key);
+  if (table === undefined) {
+    table = Array.from(times, (t) => computeTimeFactors(seg, omega, t));
+    perDrive.set(key, table);
+  }
+  return table;
+}
+
+function fillSegment(seg: CompiledSegment, g: Float64Array, out: ComplexMatrix): ComplexMatrix {
+  const n = out.rows;
+  out.re.fill(0);
+  out.im.fill(0);
+  const terms = seg.terms;
+  for (let j = 0; j < terms.length; j++) {
+    const term = terms[j];
+    const gr = g[2 * j], gi = g[2 * j + 1];
     if (term.onsite) {
-      out.re[term.to * n + term.to] += f * term.cRe;
+      out.re[term.to * n + term.to] += gr * term.cRe;
       continue;
     }
-    let hr = f * term.cRe, hi = f * term.cIm;
-    if (dims > 0) {
-      let phase = 0;
-      for (let k = 0; k < dims; k++) phase += a[k] * term.qd[k];
-      const pr = Math.cos(phase), pi = Math.sin(phase);
-      const xr = hr * pr - hi * pi;
-      hi = hr * pi + hi * pr;
-      hr = xr;
-    }
+    const hr = gr * term.cRe - gi * term.cIm, hi = gr * term.cIm + gi * term.cRe;
     const p = term.to * n + term.from, q = term.from * n + term.to;
     out.re[p] += hr;
     out.im[p] += hi;
@@ -170,15 +208,22 @@ export function prepareBloch(drive: LatticeDrive, s: ArrayLike<number>): Prepare
     const seg = segments[i];
     const target = out ?? zeros(n, n);
     if (seg.constant) {
-      if (seg.fixed === null) seg.fixed = fillSegment(seg, omega, seg.start, zeros(n, n));
+      if (seg.fixed === null) seg.fixed = fillSegment(seg, computeTimeFactors(seg, omega, seg.start), zeros(n, n));
       target.re.set(seg.fixed.re);
       target.im.set(seg.fixed.im);
       return target;
     }
-    return fillSegment(seg, omega, t, target);
+    return fillSegment(seg, computeTimeFactors(seg, omega, t), target);
+  };
+  const tableSampler = (i: number, key: string, times: ArrayLike<number>) => {
+    checkIndex(i);
+    const seg = segments[i];
+    const table = timeFactorTable(drive, `${i}|${key}`, seg, omega, times);
+    return (node: number, out: ComplexMatrix) => fillSegment(seg, table[node], out);
   };
   return {
     size: n,
+    tableSampler,
     at: (t) => segmentAt(segmentIndexAt(t), t),
     isConstant: (i) => {
       checkIndex(i);

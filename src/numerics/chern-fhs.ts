@@ -18,6 +18,10 @@
  *
  * The periodic (cell) gauge of drive.ts makes U(s + e_i, T) = U(s, T), so the
  * links that wrap around the torus use the same eigenvectors: no extra phase.
+ *
+ * Orientation: the lattice sum is taken in reduced momenta (s₁, s₂) and then
+ * multiplied by sign det(a₁, a₂), so C is the Cartesian (physical) Chern number
+ * and a left-handed choice of lattice vectors gives the same C.
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
 import type { RefinementStep } from './certificates.ts';
@@ -45,6 +49,16 @@ export interface ChernOptions {
   tolerance?: number;
 }
 
+
+/** sign det(a₁, a₂) over the first two Cartesian components: +1 for a right-handed basis. */
+export function latticeOrientation(drive: { latticeVectors: number[][] }): 1 | -1 {
+  const [a1, a2] = drive.latticeVectors;
+  const det = (a1?.[0] ?? 0) * (a2?.[1] ?? 0) - (a1?.[1] ?? 0) * (a2?.[0] ?? 0);
+  if (!(Math.abs(det) > 0)) {
+    throw new RangeError(`latticeOrientation: lattice vectors (${a1?.join(', ')}) and (${a2?.join(', ')}) are parallel or not finite`);
+  }
+  return det > 0 ? 1 : -1;
+}
 
 /** Columns `cols` of `v` as an N × m matrix. */
 export function selectColumns(v: ComplexMatrix, cols: number[]): ComplexMatrix {
@@ -138,6 +152,7 @@ export function chernNumber(
   if (sampler.drive.dimension !== 2) {
     throw new RangeError(`chernNumber: needs a drive with two periodic directions, got dimension ${sampler.drive.dimension}`);
   }
+  const orientation = latticeOrientation(sampler.drive);
   const threshold = options.fluxThreshold ?? DEFAULT_FLUX_THRESHOLD;
   const tolerance = options.tolerance ?? 1e-6;
   const maxGrid = options.maxGrid ?? 128;
@@ -167,6 +182,7 @@ export function chernNumber(
       return { ...integerEstimate(last, tolerance, [n, n], history, false, caveat), maxPlaquetteFlux: NaN, fluxThreshold: threshold, minimalLinkModulus: NaN };
     }
     const field = fhsFieldStrength(frames, n, n);
+    field.raw *= orientation;
     history.push({ grid: [n, n], value: field.raw });
     const stable = previous !== undefined && Math.round(previous) === Math.round(field.raw);
     const fluxOk = field.maxFlux < threshold && field.minimalLinkModulus > MINIMAL_LINK_MODULUS;

@@ -14,9 +14,10 @@
  *
  * Direct gap. For a gap named by c, the direct gap at k is the distance
  * between the two eigenvalues that bound c at that k. Its minimum is found on
- * the grid and then refined around the lowest few local minima with nested
- * sub-grids (each level 5 × 5 points over ±1 previous spacing), so that a
- * near-closing between grid points is not missed.
+ * the grid and then refined around the lowest few local minima by a pattern
+ * search (moves of ±h in every direction, h halved when no move improves,
+ * starting from half a grid spacing), so that a near-closing between grid
+ * points is not missed.
  *
  * Band groups. Between two consecutive open gaps lie one or more eigenphase
  * branches; they are grouped (a band group) and flagged as touching when two
@@ -36,7 +37,7 @@ export interface GapOptions {
   gapTolerance?: number;
   /** Claimed gap labels (units π/T): a gap containing one is named by it. */
   labels?: number[];
-  /** Nested refinement levels around each local minimum of the direct gap (default 4). */
+  /** Step halvings of the local search around each grid minimum of the direct gap (default 14: resolution 2⁻¹⁵ grid spacings). */
   refinementLevels?: number;
   /** How many of the lowest grid minima to refine (default 3). */
   refinedMinima?: number;
@@ -126,29 +127,34 @@ export function directGapAt(quasienergies: Float64Array, cut: number): number {
   return lowest + (2 - highest);
 }
 
+/**
+ * Pattern (compass) search for the smallest direct gap near a grid minimum:
+ * evaluate the 3^d − 1 neighbours at distance h per direction, move to the best
+ * if it improves, else halve h; stop after `halvings` halvings.
+ */
 function refineMinimum(
   sampler: FloquetSampler,
   cut: number,
   start: number[],
   spacing: number[],
-  levels: number,
+  halvings: number,
 ): { gap: number; momentum: number[]; evaluations: number } {
   let centre = start.slice();
-  let half = spacing.slice();
+  let step = spacing.map((h) => h / 2);
   let best = directGapAt(sampler.at(centre).quasienergies, cut);
   let evaluations = 0;
-  const points = 5;
-  for (let level = 0; level < levels; level++) {
-    const step = half.map((h) => (2 * h) / (points - 1));
-    let next = centre;
-    const offsets: number[][] = [[]];
-    for (let d = 0; d < centre.length; d++) {
-      const grown: number[][] = [];
-      for (const o of offsets) for (let j = 0; j < points; j++) grown.push([...o, -half[d] + j * step[d]]);
-      offsets.splice(0, offsets.length, ...grown);
-    }
-    for (const o of offsets) {
-      const s = centre.map((c, d) => c + o[d]);
+  const offsets: number[][] = [[]];
+  for (let d = 0; d < centre.length; d++) {
+    const grown: number[][] = [];
+    for (const o of offsets) for (const x of [-1, 0, 1]) grown.push([...o, x]);
+    offsets.splice(0, offsets.length, ...grown);
+  }
+  const moves = offsets.filter((o) => o.some((x) => x !== 0));
+  let halved = 0, guard = 0;
+  while (halved < halvings && guard++ < 50 * (halvings + 1)) {
+    let next: number[] | undefined;
+    for (const o of moves) {
+      const s = centre.map((c, d) => c + o[d] * step[d]);
       const g = directGapAt(sampler.at(s).quasienergies, cut);
       evaluations++;
       if (g < best) {
@@ -156,8 +162,11 @@ function refineMinimum(
         next = s;
       }
     }
-    centre = next;
-    half = step;
+    if (next !== undefined) centre = next;
+    else {
+      step = step.map((h) => h / 2);
+      halved++;
+    }
   }
   return { gap: best, momentum: centre.map((c) => c - Math.floor(c)), evaluations };
 }
@@ -173,7 +182,7 @@ function labelInside(labels: number[] | undefined, lower: number, width: number)
 /** Finds every gap of the sampled spectrum, with its minimal direct gap refined locally. */
 export function findGaps(sampler: FloquetSampler, data: QuasienergyGrid, options: GapOptions = {}): DetectedGap[] {
   const tolerance = options.gapTolerance ?? DEFAULT_GAP_TOLERANCE;
-  const levels = options.refinementLevels ?? 4;
+  const levels = options.refinementLevels ?? 14;
   const refined = options.refinedMinima ?? 3;
   const gaps: DetectedGap[] = [];
   for (const [lo, hi] of emptyArcs(data)) {

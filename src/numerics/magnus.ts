@@ -19,19 +19,45 @@ export const CF4_WEIGHTS: readonly [number, number] = [(3 - 2 * SQRT3) / 12, (3 
 /** Writes H(t) into `out` (n×n) and returns it. */
 export type HamiltonianSampler = (t: number, out: ComplexMatrix) => ComplexMatrix;
 
-/** U(t1, t0) with `slices` equal CF4 steps; n is the matrix size. */
+/**
+ * Writes H at quadrature node `node` into `out`: node 2k is t₀ + (k + c₁)h and
+ * node 2k + 1 is t₀ + (k + c₂)h (see cf4NodeTimes).
+ */
+export type NodeSampler = (node: number, out: ComplexMatrix) => ComplexMatrix;
+
+/** The 2·slices quadrature node times of CF4 on [t0, t1]. */
+export function cf4NodeTimes(t0: number, t1: number, slices: number): Float64Array {
+  const h = (t1 - t0) / slices;
+  const times = new Float64Array(2 * slices);
+  for (let k = 0; k < slices; k++) {
+    times[2 * k] = t0 + (k + CF4_NODES[0]) * h;
+    times[2 * k + 1] = t0 + (k + CF4_NODES[1]) * h;
+  }
+  return times;
+}
+
+/** U(t1, t0) with `slices` equal CF4 steps; `size` is the matrix size. */
 export function magnusCF4(hamiltonian: HamiltonianSampler, size: number, t0: number, t1: number, slices: number): ComplexMatrix {
+  checkSlices(slices);
+  const times = cf4NodeTimes(t0, t1, slices);
+  return magnusCF4AtNodes((node, out) => hamiltonian(times[node], out), size, t0, t1, slices);
+}
+
+function checkSlices(slices: number): void {
   if (!(Number.isInteger(slices) && slices >= 1)) throw new RangeError(`magnusCF4: slice count must be a positive integer, got ${slices}`);
+}
+
+/** As magnusCF4, with H supplied per quadrature node (lets callers precompute node tables). */
+export function magnusCF4AtNodes(hamiltonian: NodeSampler, size: number, t0: number, t1: number, slices: number): ComplexMatrix {
+  checkSlices(slices);
   if (size === 2) return magnusCF4TwoLevel(hamiltonian, t0, t1, slices);
   const h = (t1 - t0) / slices;
-  const [c1, c2] = CF4_NODES;
   const [a1, a2] = CF4_WEIGHTS;
   const h1 = zeros(size, size), h2 = zeros(size, size), g = zeros(size, size);
   let u = identity(size);
   for (let k = 0; k < slices; k++) {
-    const ta = t0 + k * h;
-    hamiltonian(ta + c1 * h, h1);
-    hamiltonian(ta + c2 * h, h2);
+    hamiltonian(2 * k, h1);
+    hamiltonian(2 * k + 1, h2);
     for (let p = 0; p < g.re.length; p++) {
       g.re[p] = a2 * h1.re[p] + a1 * h2.re[p];
       g.im[p] = a2 * h1.im[p] + a1 * h2.im[p];
@@ -50,9 +76,8 @@ export function magnusCF4(hamiltonian: HamiltonianSampler, size: number, t0: num
  * Allocation-free 2×2 path (two-band models on fine k grids): with
  * G = g₀ + g·σ, exp(−iGh) = e^{−ig₀h}(cos|g|h − i sin(|g|h) ĝ·σ), multiplied into U in place.
  */
-function magnusCF4TwoLevel(hamiltonian: HamiltonianSampler, t0: number, t1: number, slices: number): ComplexMatrix {
+function magnusCF4TwoLevel(hamiltonian: NodeSampler, t0: number, t1: number, slices: number): ComplexMatrix {
   const h = (t1 - t0) / slices;
-  const [c1, c2] = CF4_NODES;
   const [a1, a2] = CF4_WEIGHTS;
   const h1 = zeros(2, 2), h2 = zeros(2, 2);
   const u = identity(2);
@@ -82,9 +107,8 @@ function magnusCF4TwoLevel(hamiltonian: HamiltonianSampler, t0: number, t1: numb
     }
   };
   for (let k = 0; k < slices; k++) {
-    const ta = t0 + k * h;
-    hamiltonian(ta + c1 * h, h1);
-    hamiltonian(ta + c2 * h, h2);
+    hamiltonian(2 * k, h1);
+    hamiltonian(2 * k + 1, h2);
     apply(a2, a1);
     apply(a1, a2);
   }

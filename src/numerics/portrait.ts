@@ -132,3 +132,128 @@ export interface SheetPortrait {
   /** Wall time per stage in milliseconds. */
   timings: Record<string, number>;
 }
+
+/** A quasienergy gap of a chain at 0 or π/T (see src/numerics/chain/bulk-gaps.ts). */
+export interface ChainGapReport {
+  /** 0 or 1 (units π/T). */
+  label: 0 | 1;
+  /** Distance from the label to the nearest bulk quasienergy over k (units π/T); the direct gap is twice this when the spectrum is symmetric. */
+  clearance: number;
+  /** Reduced momentum where the clearance is smallest. */
+  momentumAtMinimum: number;
+  /** clearance > gapTolerance. */
+  open: boolean;
+  /** Decay length estimate v_max / clearance of end states (cells; Infinity when closed). */
+  decayLengthEstimate: number;
+}
+
+/** A declared symmetry and how well the drive satisfies it. */
+export interface ChainSymmetryReport {
+  symmetry: 'chiral' | 'particle-hole' | 'time-reversal';
+  /** Relative residual of the Hamiltonian relation, ‖…‖_F / max(1, ‖H‖_F), max over checked times and momenta. */
+  hamiltonianResidual: number;
+  /** Absolute residual of the Floquet-operator relation (in the symmetric frame where one applies). */
+  floquetResidual: number;
+  /** Frame time the relation was checked about (absolute units), for chiral and time reversal. */
+  frameTime?: number;
+  tolerance: number;
+  /** False: the symmetry is broken ("symmetry broken" for any claim resting on it). */
+  holds: boolean;
+}
+
+/** The winding of one symmetric time frame. */
+export interface ChainFrameReport {
+  /** Frame start t₀ (absolute units). */
+  frameTime: number;
+  /** Winding of det h(k) of the chiral block of H_eff (cut at π/T) in this frame. */
+  winding: IntegerEstimate;
+  /** Momenta in the adaptive grid and the largest phase step on it (radians, must be < π/4). */
+  points: number;
+  maxStepPhase: number;
+  /** min |det h| / max |det h| over the grid: small means a gap closes on the loop. */
+  modulusRatio: number;
+  /** max_k ‖Γ U Γ† − U†‖_F in this frame. */
+  floquetResidual: number;
+}
+
+/** Chiral invariants (AIII, BDI): ν₀ = (ν′ + ν″)/2, ν_π = (ν′ − ν″)/2 (Asbóth & Obuse 2013). */
+export interface ChainChiralReport {
+  /** 'computed', or why not: no symmetric time frame, or Γ with unequal ±1 eigenspaces. */
+  status: 'computed' | 'no-symmetric-frame' | 'unbalanced-chiral-operator';
+  /** Where Γ comes from: declared, or built as U_T U_C* from time reversal and particle–hole. */
+  source: 'declared' | 'time-reversal × particle-hole';
+  frames: ChainFrameReport[];
+  /** Residual of the best candidate frame and its tolerance (also when none was found). */
+  frameResidual: number;
+  frameTolerance: number;
+  zero?: IntegerEstimate;
+  pi?: IntegerEstimate;
+  reason?: string;
+}
+
+/** Class D Z₂ invariants at 0 and π (src/numerics/chain/majorana-z2.ts). */
+export interface ChainMajoranaReport {
+  status: 'computed' | 'not-nambu' | 'too-many-orbitals';
+  /** −1: odd number of Majorana end modes at that quasienergy; null when unsettled. */
+  zero: 1 | -1 | null;
+  pi: 1 | -1 | null;
+  /** Margins the signs rest on (|Pf| and |Tr Û|/2ⁿ products) and their tolerance. */
+  zeroMargin: number;
+  piMargin: number;
+  tolerance: number;
+  /** Per particle–hole symmetric momentum: Tr Û/2ⁿ, Pf[(U_M − U_Mᵀ)/2], ‖Im U_M‖_F, lift consistency. */
+  momenta: { momentum: number; spinTrace: number; pfaffian: number; realityDefect: number; liftConsistency: number }[];
+  reason?: string;
+}
+
+/** End modes of an open chain in the gap at 0 or π. */
+export interface ChainEndModes {
+  label: 0 | 1;
+  /** Modes per end (rounded end weights); null when unsettled. */
+  low: number | null;
+  high: number | null;
+  /** Summed weights in the end regions (what the counts round). */
+  lowWeight: number;
+  highWeight: number;
+  /** Fitted amplitude decay lengths at each end (cells) and rms residual of the fit of ln ρ. */
+  lowDecayLength: number | null;
+  highDecayLength: number | null;
+  fitResidual: number;
+  /** Quasienergies of the end states (units π/T) and the window half-width used. */
+  quasienergies: number[];
+  window: number;
+  settled: boolean;
+  reason?: string;
+}
+
+export interface ChainOpenReport {
+  /** Chain length (cells), end-region size (cells), and whether the default length reached 10 decay lengths. */
+  cells: number;
+  edgeCells: number;
+  lengthSufficient: boolean;
+  modes: ChainEndModes[];
+  /** ‖UV − VΛ‖_F of the open-chain eigen-decomposition. */
+  eigenResidual: number;
+}
+
+export interface ChainPortrait {
+  kind: 'chain';
+  /** Gaps at 0 and at π (in that order), with the uniform k grid size used. */
+  gaps: ChainGapReport[];
+  gapGrid: number;
+  /** Declared symmetries with residuals. */
+  symmetries: ChainSymmetryReport[];
+  /** Present when a chiral operator is declared or derivable (time reversal and particle–hole both declared). */
+  chiral?: ChainChiralReport;
+  /** Present when particle–hole symmetry is declared. */
+  majorana?: ChainMajoranaReport;
+  /** Winding of det U(k, T): 0 for every Hamiltonian drive (a consistency check). */
+  determinantWinding: IntegerEstimate;
+  openChain: ChainOpenReport;
+  /** Bulk–end relations: |ν₀|, |ν_π| (or the Z₂ parities) against the end-mode counts. */
+  consistency: ConsistencyCheck[];
+  /** Largest accuracy estimate reported by the time integration (eigenphase units). */
+  propagatorAccuracy: number;
+  /** Wall time per stage in milliseconds. */
+  timings: Record<string, number>;
+}

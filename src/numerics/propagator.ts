@@ -17,7 +17,7 @@ import type { LatticeDrive } from './drive.ts';
 import { angularFrequency } from './drive.ts';
 import type { PreparedBloch } from './bloch.ts';
 import { prepareBloch } from './bloch.ts';
-import { magnusCF4 } from './magnus.ts';
+import { cf4NodeTimes, magnusCF4AtNodes } from './magnus.ts';
 
 export interface PropagatorOptions {
   /** Target accuracy of quasienergies·T (eigenphases), default 1e-10. */
@@ -65,8 +65,10 @@ function segmentFrequency(drive: LatticeDrive, index: number): number {
   return h * angularFrequency(drive);
 }
 
-function sampler(bloch: PreparedBloch, index: number) {
-  return (t: number, out: ComplexMatrix) => bloch.segmentAt(index, t, out);
+/** U over [t0, t1] of a time-dependent segment with `slices` CF4 steps, node factors cached per drive. */
+function magnusSegment(bloch: PreparedBloch, index: number, t0: number, t1: number, slices: number): ComplexMatrix {
+  const sampler = bloch.tableSampler(index, `${t0}|${t1}|${slices}`, cf4NodeTimes(t0, t1, slices));
+  return magnusCF4AtNodes(sampler, bloch.size, t0, t1, slices);
 }
 
 /** Refines the Magnus slice count of one time-dependent segment. */
@@ -78,11 +80,10 @@ function planSegment(drive: LatticeDrive, bloch: PreparedBloch, index: number, s
   for (const x of [0, 0.5, 1]) scale = Math.max(scale, frobeniusNorm(bloch.segmentAt(index, start + x * seg.duration, scratch)));
   scale += segmentFrequency(drive, index);
   let slices = Math.min(maxSlices, Math.max(2, Math.ceil((seg.duration * scale) / 0.5)));
-  const f = sampler(bloch, index);
-  let coarse = magnusCF4(f, n, start, start + seg.duration, slices);
+  let coarse = magnusSegment(bloch, index, start, start + seg.duration, slices);
   for (;;) {
     if (2 * slices > maxSlices) return { slices, operator: coarse, accuracy: Infinity, converged: false };
-    const fine = magnusCF4(f, n, start, start + seg.duration, 2 * slices);
+    const fine = magnusSegment(bloch, index, start, start + seg.duration, 2 * slices);
     const change = distance(fine, coarse);
     slices *= 2;
     if (change <= tolerance) return { slices, operator: fine, accuracy: change, converged: true };
@@ -189,6 +190,5 @@ function constantStepper(h: ComplexMatrix): (t0: number, t1: number) => ComplexM
 }
 
 function magnusStepper(bloch: PreparedBloch, index: number, duration: number, slices: number): (t0: number, t1: number) => ComplexMatrix {
-  const f = sampler(bloch, index);
-  return (t0, t1) => magnusCF4(f, bloch.size, t0, t1, Math.max(1, Math.ceil((slices * (t1 - t0)) / duration)));
+  return (t0, t1) => magnusSegment(bloch, index, t0, t1, Math.max(1, Math.ceil((slices * (t1 - t0)) / duration)));
 }

@@ -3,19 +3,21 @@
  * bands and gaps, Chern numbers of every band group, gap winding numbers,
  * signed edge counts on ribbons, and the relations between them.
  *
- * Relations checked (derived in docs/conventions.md, all in reduced momenta):
+ * Relations checked (derived in docs/conventions.md):
  *  - Σ C over all band groups = 0;
  *  - W(gap above) − W(gap below) = C of the group between them
  *    (Rudner, Lindner, Berg, Levin, PRX 3, 031005 (2013));
  *  - on a ribbon finite along a₁ (finiteDirection 0): high-edge count = +W,
- *    low-edge count = −W; finite along a₂ (finiteDirection 1): low = +W, high = −W;
+ *    low-edge count = −W; finite along a₂ (finiteDirection 1): low = +W, high = −W
+ *    (right-handed a₁, a₂; a left-handed basis flips these signs, since C and W
+ *    are reported in Cartesian orientation while k∥ follows the lattice vector);
  *  - between consecutive gaps, edge counts change by the same signs times C
  *    (this one needs no winding numbers).
  */
 import type { LatticeDrive } from './drive.ts';
 import type { BandGroupReport, ConsistencyCheck, EdgeCountReport, GapReport, RibbonReport, SheetPortrait, WindingReport } from './portrait.ts';
 import type { ChernOptions } from './chern-fhs.ts';
-import { chernNumber } from './chern-fhs.ts';
+import { chernNumber, latticeOrientation } from './chern-fhs.ts';
 import type { DetectedGap } from './gaps.ts';
 import { bandGroups, DEFAULT_GAP_TOLERANCE, findGaps, orderFromCut } from './gaps.ts';
 import type { PropagatorOptions } from './propagator.ts';
@@ -24,7 +26,8 @@ import { aboveCut, FloquetSampler, gridNeighbour, sampleQuasienergyGrid } from '
 import type { EdgeCountOptions } from './edge-modes.ts';
 import { countEdgeModes } from './edge-modes.ts';
 import { ribbonSpectrum } from './ribbon.ts';
-// TODO(winding.ts): call gapWindingNumbers(drive, gapLabels, options) from './winding.ts' once that module exists.
+import type { WindingOptions } from './winding.ts';
+import { gapWindingNumbers } from './winding.ts';
 
 export interface SheetRibbonOptions {
   /** Finite directions to cut (default both, [0, 1]). */
@@ -47,6 +50,7 @@ export interface SheetOptions {
   /** Band groups are counted upward from the open gap containing this quasienergy (default 1, the gap at π/T). */
   cut?: number;
   chern?: ChernOptions;
+  winding?: WindingOptions;
   ribbon?: SheetRibbonOptions;
   edges?: EdgeCountOptions;
   propagator?: PropagatorOptions;
@@ -56,10 +60,15 @@ export interface SheetOptions {
 
 export const DEFAULT_SHEET_GRID = [24, 24];
 
-/** Sign s with count(edge) = s · W for a ribbon finite along lattice vector `finiteDirection` (docs/conventions.md). */
-export function edgeSign(finiteDirection: number, edge: 'low' | 'high'): 1 | -1 {
+/**
+ * Sign σ with count(edge) = σ · W for a ribbon finite along lattice vector
+ * `finiteDirection` (docs/conventions.md, "Ribbons"): for a right-handed basis
+ * (orientation +1) the low edge counts −W when finite along a₁ and +W when
+ * finite along a₂; the high edge the opposite. A left-handed basis flips all.
+ */
+export function edgeSign(finiteDirection: number, edge: 'low' | 'high', orientation: 1 | -1 = 1): 1 | -1 {
   const lowSign = finiteDirection === 0 ? -1 : 1;
-  return edge === 'low' ? lowSign : (-lowSign as 1 | -1);
+  return (orientation * (edge === 'low' ? lowSign : -lowSign)) as 1 | -1;
 }
 
 /** Decay length (cells) of edge states in a gap, estimated from the bulk: ξ ≈ v/(πΔ), v = max |dε/ds_f| of the two bounding branches. */
@@ -130,9 +139,16 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   });
   timings.chern = clock() - t;
 
-  // Winding numbers come from winding.ts (another module); until it is wired in, none are reported.
-  const windings: WindingReport[] = [];
-  timings.winding = 0;
+  t = clock();
+  const windings: WindingReport[] =
+    run.winding && ordered.length > 0
+      ? gapWindingNumbers(
+          drive,
+          ordered.map((g) => g.label),
+          { propagator: options.propagator, ...options.winding },
+        )
+      : [];
+  timings.winding = clock() - t;
 
   t = clock();
   const ribbons: RibbonReport[] = [];
@@ -161,7 +177,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   }
   timings.edges = clock() - t;
 
-  const consistency = consistencyChecks(ordered, bands, windings, ribbons);
+  const consistency = consistencyChecks(ordered, bands, windings, ribbons, latticeOrientation(drive));
   return {
     kind: 'sheet',
     grid: grid.slice(),
@@ -187,6 +203,7 @@ export function consistencyChecks(
   bands: BandGroupReport[],
   windings: WindingReport[],
   ribbons: RibbonReport[],
+  orientation: 1 | -1 = 1,
 ): ConsistencyCheck[] {
   const checks: ConsistencyCheck[] = [];
   const inconclusive = (name: string, detail: string): ConsistencyCheck => ({ name, holds: false, detail, inconclusive: true });
@@ -212,7 +229,7 @@ export function consistencyChecks(
   }
   for (const ribbon of ribbons) {
     for (const edge of ['low', 'high'] as const) {
-      const sign = edgeSign(ribbon.finiteDirection, edge);
+      const sign = edgeSign(ribbon.finiteDirection, edge, orientation);
       const countAt = (label: number): number | null | undefined => ribbon.counts.find((c) => c.edge === edge && Math.abs(c.gap - label) < 1e-9)?.count;
       if (windings.length > 0) {
         for (const gap of ordered) {

@@ -107,6 +107,7 @@ export function gradedAxis(n: number, foci: AxisFocus[]): Float64Array {
   };
   for (let i = 0; i < n; i++) {
     const target = i / n;
+    if (target === 0) continue; // F(0) = 0: the first point is s = 0 exactly.
     let lo = 0, hi = 1;
     // Bisection: F is increasing with F(0) = 0, F(1) = 1; 60 halvings reach rounding.
     for (let it = 0; it < 60; it++) {

@@ -27,7 +27,7 @@
  * All cuts are done in one sweep: U(s, t) is shared, only X changes.
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
-import { identity, multiply, multiplyAdjointLeft, multiplyAdjointRight, zeros } from './linalg/complex-matrix.ts';
+import { multiply, multiplyAdjointLeft, multiplyAdjointRight, zeros } from './linalg/complex-matrix.ts';
 import { HermitianEigen } from './linalg/hermitian-eigen.ts';
 import { UnitaryEigen } from './linalg/unitary-eigen.ts';
 import type { LatticeDrive } from './drive.ts';
@@ -37,7 +37,7 @@ import { quasienergyBelowCut } from './effective-hamiltonian.ts';
 import type { LoopPlan } from './winding-loop.ts';
 import { pieceGenerator } from './winding-loop.ts';
 import { centralDifference, gaussLegendre } from './winding-grid.ts';
-import { densitySumTwo, framesTwo } from './winding-kernel-two.ts';
+import { densitySumTwo, framesTwo, propagateTwo } from './winding-kernel-two.ts';
 
 export interface WindingGrid {
   /** Reduced momenta along b₁ and b₂ (uniform in the grid index σ = i/n). */
@@ -106,6 +106,43 @@ function traceProduct(a: ComplexMatrix, b: ComplexMatrix): [number, number] {
 }
 
 /**
+ * Central differences along both grid directions of a packed field of n×n
+ * matrices (nn entries per momentum, momentum index i₁·n₂ + i₂), periodic:
+ * d_μ = n_μ Σ_j c_j (v(σ + j ê_μ) − v(σ − j ê_μ)), i.e. ∂/∂σ_μ with σ_μ = i_μ/n_μ.
+ */
+export function centralDerivatives(
+  n1: number, n2: number, nn: number, coef: Float64Array,
+  vr: Float64Array, vi: Float64Array,
+  d1r: Float64Array, d1i: Float64Array, d2r: Float64Array, d2i: Float64Array,
+): void {
+  d1r.fill(0); d1i.fill(0); d2r.fill(0); d2i.fill(0);
+  const row = n2 * nn, total = n1 * row;
+  for (let j = 1; j <= coef.length; j++) {
+    // Direction 1: shifting i₁ moves whole rows, so one flat loop with a wrap.
+    const c1 = coef[j - 1] * n1, shift1 = (j % n1) * row;
+    for (let e = 0; e < total; e++) {
+      let up = e + shift1, down = e - shift1;
+      if (up >= total) up -= total;
+      if (down < 0) down += total;
+      d1r[e] += c1 * (vr[up] - vr[down]);
+      d1i[e] += c1 * (vi[up] - vi[down]);
+    }
+    // Direction 2: shift within each row.
+    const c2 = coef[j - 1] * n2, shift2 = (j % n2) * nn;
+    for (let base = 0; base < total; base += row) {
+      const end = base + row;
+      for (let e = base; e < end; e++) {
+        let right = e + shift2, left = e - shift2;
+        if (right >= end) right -= row;
+        if (left < base) left += row;
+        d2r[e] += c2 * (vr[right] - vr[left]);
+        d2i[e] += c2 * (vi[right] - vi[left]);
+      }
+    }
+  }
+}
+
+/**
  * W for every cut (labels in units of π/T) on one grid. `orientation` is
  * sign det(a₁, a₂).
  */
@@ -119,6 +156,7 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
   const length = plan.length;
   const cutTheta = cuts.map((c) => c * Math.PI);
   const g = cuts.length;
+  const twoBand = n === 2 && grid.kernel !== 'general';
 
   const blochs: PreparedBloch[] = new Array(count);
   for (let i1 = 0; i1 < n1; i1++) for (let i2 = 0; i2 < n2; i2++) blochs[i1 * n2 + i2] = prepareBloch(drive, [ax1[i1], ax2[i2]]);
@@ -126,27 +164,60 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
   // Scratch matrices, allocated once.
   const m = () => zeros(n, n);
   const gen = m(), scratch = m(), work = m(), ex = m(), u = m(), u2 = m(), w = m(), vg = m(), v = m();
-  const d1 = m(), d2 = m(), a1 = m(), a2 = m(), hv = m(), c = m(), comm = m(), tmp = m(), x = m(), qf = m(), q = m();
+  const a1 = m(), a2 = m(), hv = m(), c = m(), comm = m(), tmp = m(), x = m(), qf = m(), q = m(), d1 = m(), d2 = m();
+  const packed = () => [new Float64Array(count * nn), new Float64Array(count * nn)];
 
-  // Pass 1: U(s, T) per momentum, its eigenvectors Q_F and the branch of each cut.
-  const floquetRe = new Float64Array(count * nn), floquetIm = new Float64Array(count * nn);
-  const qfRe = new Float64Array(count * nn), qfIm = new Float64Array(count * nn);
+  // Generators of one piece at every momentum (and, off the two-band path, their eigen-decompositions).
+  const [genRe, genIm] = packed();
+  const [vecRe, vecIm] = packed();
+  const valRe = new Float64Array(count * n);
+  const loadPiece = (piece: LoopPlan['pieces'][number]) => {
+    for (let k = 0; k < count; k++) {
+      pieceGenerator(blochs[k], piece, gen, scratch);
+      save(gen, genRe, genIm, k * nn);
+      if (twoBand) continue;
+      const eig = new HermitianEigen(gen);
+      valRe.set(eig.values, k * n);
+      save(eig.vectors, vecRe, vecIm, k * nn);
+    }
+  };
+  // S ← exp(−iGτ) S at every momentum.
+  const [startRe, startIm] = packed();
+  const [nextRe, nextIm] = packed();
+  const advance = (tau: number) => {
+    for (let k = 0; k < count; k++) {
+      if (twoBand) {
+        propagateTwo(genRe, genIm, 4 * k, tau, startRe, startIm, 4 * k, nextRe, nextIm, 4 * k);
+        continue;
+      }
+      load(vecRe, vecIm, k * nn, q);
+      spectralExp(valRe, k * n, q, tau, ex, work);
+      multiply(ex, load(startRe, startIm, k * nn, u2), u);
+      save(u, nextRe, nextIm, k * nn);
+    }
+    startRe.set(nextRe);
+    startIm.set(nextIm);
+  };
+  const resetStart = () => {
+    startRe.fill(0);
+    startIm.fill(0);
+    for (let k = 0; k < count; k++) for (let a = 0; a < n; a++) startRe[k * nn + a * n + a] = 1;
+  };
+
+  // Pass 1: U(s, T) per momentum, its eigenvectors Q_F, the branch θ of each cut and X = Q_F diag(θ/T′) Q_F†.
+  resetStart();
+  for (const piece of plan.pieces) {
+    loadPiece(piece);
+    advance(piece.duration);
+  }
+  const floquetRe = startRe.slice(), floquetIm = startIm.slice();
+  const [qfRe, qfIm] = packed();
   const theta = cuts.map(() => new Float64Array(count * n));
   const xRe = cuts.map(() => new Float64Array(count * nn)), xIm = cuts.map(() => new Float64Array(count * nn));
   const minimalDistance = cuts.map(() => Infinity);
   const lambda = new Float64Array(n);
   for (let k = 0; k < count; k++) {
-    let acc = identity(n), next = zeros(n, n);
-    for (const piece of plan.pieces) {
-      pieceGenerator(blochs[k], piece, gen, scratch);
-      const eig = new HermitianEigen(gen);
-      lambda.set(eig.values);
-      spectralExp(lambda, 0, eig.vectors, piece.duration, ex, work);
-      multiply(ex, acc, next);
-      [acc, next] = [next, acc];
-    }
-    save(acc, floquetRe, floquetIm, k * nn);
-    const eig = new UnitaryEigen(acc);
+    const eig = new UnitaryEigen(load(floquetRe, floquetIm, k * nn, u));
     save(eig.vectors, qfRe, qfIm, k * nn);
     for (let j = 0; j < g; j++) {
       for (let a = 0; a < n; a++) {
@@ -156,7 +227,6 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
         const dist = Math.min(cutTheta[j] - th, th - cutTheta[j] + 2 * Math.PI) / Math.PI;
         if (dist < minimalDistance[j]) minimalDistance[j] = dist;
       }
-      // X = Q_F diag(θ/T′) Q_F†.
       for (let b = 0; b < n; b++) {
         for (let rr = 0; rr < n; rr++) {
           const p = rr * n + b;
@@ -170,22 +240,15 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
   }
 
   // Pass 2: sweep the loop; at each time node build V for every cut on the whole grid.
-  const startRe = new Float64Array(count * nn), startIm = new Float64Array(count * nn);
-  for (let k = 0; k < count; k++) for (let a = 0; a < n; a++) startRe[k * nn + a * n + a] = 1;
-  const genRe = new Float64Array(count * nn), genIm = new Float64Array(count * nn);
-  const valRe = new Float64Array(count * n), vecRe = new Float64Array(count * nn), vecIm = new Float64Array(count * nn);
+  resetStart();
   const vRe = cuts.map(() => new Float64Array(count * nn)), vIm = cuts.map(() => new Float64Array(count * nn));
+  const [d1Re, d1Im] = packed();
+  const [d2Re, d2Im] = packed();
   const sums = new Float64Array(g), sumsIm = new Float64Array(g), imaginaryPart = new Float64Array(1);
-  const twoBand = n === 2 && grid.kernel !== 'general';
   let t0 = 0, timeNodes = 0;
-  plan.pieces.forEach((piece, p) => {
-    for (let k = 0; k < count; k++) {
-      pieceGenerator(blochs[k], piece, gen, scratch);
-      const eig = new HermitianEigen(gen);
-      save(gen, genRe, genIm, k * nn);
-      valRe.set(eig.values, k * n);
-      save(eig.vectors, vecRe, vecIm, k * nn);
-    }
+  for (let p = 0; p < plan.pieces.length; p++) {
+    const piece = plan.pieces[p];
+    loadPiece(piece);
     const rule = gaussLegendre(grid.nodesPerPiece[p]);
     const half = piece.duration / 2;
     for (let i = 0; i < rule.nodes.length; i++) {
@@ -194,83 +257,63 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
       const tp = t0 + tau;
       timeNodes++;
       if (twoBand) {
-        for (let k = 0; k < count; k++) framesTwo(k, valRe, vecRe, vecIm, tau, startRe, startIm, qfRe, qfIm, theta, tp / length, vRe, vIm);
-        for (let j = 0; j < g; j++) {
-          sums[j] += (weight * densitySumTwo(n1, n2, coef, vRe[j], vIm[j], genRe, genIm, xRe[j], xIm[j], imaginaryPart)) / count;
-          sumsIm[j] += (weight * imaginaryPart[0]) / count;
-        }
-        continue;
-      }
-      for (let k = 0; k < count; k++) {
-        load(vecRe, vecIm, k * nn, q);
-        spectralExp(valRe, k * n, q, tau, ex, work);
-        multiply(ex, load(startRe, startIm, k * nn, u2), u);
-        multiply(u, load(qfRe, qfIm, k * nn, qf), w);
-        for (let j = 0; j < g; j++) {
-          // V = U Q_F diag(e^{iθ t/T′}) Q_F†.
-          const th = theta[j];
-          for (let b = 0; b < n; b++) {
-            const ang = (th[k * n + b] * tp) / length;
-            const cr = Math.cos(ang), ci = Math.sin(ang);
-            for (let rr = 0; rr < n; rr++) {
-              const pp = rr * n + b;
-              work.re[pp] = w.re[pp] * cr - w.im[pp] * ci;
-              work.im[pp] = w.re[pp] * ci + w.im[pp] * cr;
+        for (let k = 0; k < count; k++) framesTwo(k, genRe, genIm, tau, startRe, startIm, qfRe, qfIm, theta, tp / length, vRe, vIm);
+      } else {
+        for (let k = 0; k < count; k++) {
+          load(vecRe, vecIm, k * nn, q);
+          spectralExp(valRe, k * n, q, tau, ex, work);
+          multiply(ex, load(startRe, startIm, k * nn, u2), u);
+          multiply(u, load(qfRe, qfIm, k * nn, qf), w);
+          for (let j = 0; j < g; j++) {
+            // V = U Q_F diag(e^{iθ t/T′}) Q_F†.
+            const th = theta[j];
+            for (let b = 0; b < n; b++) {
+              const ang = (th[k * n + b] * tp) / length;
+              const cr = Math.cos(ang), ci = Math.sin(ang);
+              for (let rr = 0; rr < n; rr++) {
+                const pp = rr * n + b;
+                work.re[pp] = w.re[pp] * cr - w.im[pp] * ci;
+                work.im[pp] = w.re[pp] * ci + w.im[pp] * cr;
+              }
             }
+            multiplyAdjointRight(work, qf, vg);
+            save(vg, vRe[j], vIm[j], k * nn);
           }
-          multiplyAdjointRight(work, qf, vg);
-          save(vg, vRe[j], vIm[j], k * nn);
         }
       }
       for (let j = 0; j < g; j++) {
-        const vr = vRe[j], vi = vIm[j];
+        centralDerivatives(n1, n2, nn, coef, vRe[j], vIm[j], d1Re, d1Im, d2Re, d2Im);
+        if (twoBand) {
+          sums[j] += (weight * densitySumTwo(count, vRe[j], vIm[j], d1Re, d1Im, d2Re, d2Im, genRe, genIm, xRe[j], xIm[j], imaginaryPart)) / count;
+          sumsIm[j] += (weight * imaginaryPart[0]) / count;
+          continue;
+        }
         let acc = 0, accIm = 0;
-        for (let i1 = 0; i1 < n1; i1++) {
-          for (let i2 = 0; i2 < n2; i2++) {
-            const k = i1 * n2 + i2;
-            load(vr, vi, k * nn, v);
-            d1.re.fill(0); d1.im.fill(0); d2.re.fill(0); d2.im.fill(0);
-            for (let s = 1; s <= r; s++) {
-              const cs1 = coef[s - 1] * n1, cs2 = coef[s - 1] * n2;
-              const kp1 = (((i1 + s) % n1) * n2 + i2) * nn, km1 = (((i1 - s + n1 * s) % n1) * n2 + i2) * nn;
-              const kp2 = (i1 * n2 + ((i2 + s) % n2)) * nn, km2 = (i1 * n2 + ((i2 - s + n2 * s) % n2)) * nn;
-              for (let e = 0; e < nn; e++) {
-                d1.re[e] += cs1 * (vr[kp1 + e] - vr[km1 + e]);
-                d1.im[e] += cs1 * (vi[kp1 + e] - vi[km1 + e]);
-                d2.re[e] += cs2 * (vr[kp2 + e] - vr[km2 + e]);
-                d2.im[e] += cs2 * (vi[kp2 + e] - vi[km2 + e]);
-              }
-            }
-            multiplyAdjointLeft(v, d1, a1);
-            multiplyAdjointLeft(v, d2, a2);
-            multiply(a1, a2, comm);
-            multiply(a2, a1, tmp);
-            for (let e = 0; e < nn; e++) {
-              comm.re[e] -= tmp.re[e];
-              comm.im[e] -= tmp.im[e];
-            }
-            multiply(load(genRe, genIm, k * nn, gen), v, hv);
-            multiplyAdjointLeft(v, hv, c);
-            // Tr((−iC + iX) [A₁, A₂]): real part Im Tr(C·comm) − Im Tr(X·comm).
-            const [cr, ci] = traceProduct(c, comm);
-            const [xr, xi] = traceProduct(load(xRe[j], xIm[j], k * nn, x), comm);
-            acc += ci - xi;
-            accIm += xr - cr;
+        for (let k = 0; k < count; k++) {
+          load(vRe[j], vIm[j], k * nn, v);
+          multiplyAdjointLeft(v, load(d1Re, d1Im, k * nn, d1), a1);
+          multiplyAdjointLeft(v, load(d2Re, d2Im, k * nn, d2), a2);
+          multiply(a1, a2, comm);
+          multiply(a2, a1, tmp);
+          for (let e = 0; e < nn; e++) {
+            comm.re[e] -= tmp.re[e];
+            comm.im[e] -= tmp.im[e];
           }
+          multiply(load(genRe, genIm, k * nn, gen), v, hv);
+          multiplyAdjointLeft(v, hv, c);
+          // Tr((−iC + iX) [A₁, A₂]): real part Im Tr(C·comm) − Im Tr(X·comm).
+          const [cr, ci] = traceProduct(c, comm);
+          const [xr, xi] = traceProduct(load(xRe[j], xIm[j], k * nn, x), comm);
+          acc += ci - xi;
+          accIm += xr - cr;
         }
         sums[j] += (weight * acc) / count;
         sumsIm[j] += (weight * accIm) / count;
       }
     }
-    // Advance the start of the next piece: U ← exp(−iGτ)U.
-    for (let k = 0; k < count; k++) {
-      load(vecRe, vecIm, k * nn, q);
-      spectralExp(valRe, k * n, q, piece.duration, ex, work);
-      multiply(ex, load(startRe, startIm, k * nn, u2), u);
-      save(u, startRe, startIm, k * nn);
-    }
+    advance(piece.duration);
     t0 += piece.duration;
-  });
+  }
 
   let closureDefect = 0;
   for (let k = 0; k < count; k++) {

@@ -8,48 +8,59 @@
  */
 
 /**
- * Writes V = U Q_F diag(e^{iφ_b}) Q_F† for every cut, with
- * U = Q diag(e^{−iλτ}) Q† S (S the propagator at the start of the piece,
- * Q, λ the generator's eigen-decomposition) and φ_b = θ_b · phaseScale.
+ * out = exp(−iGτ) S for the 2×2 Hermitian G at offset go, by the closed form
+ * for G = g₀ + h·σ (the same as linalg/exponential.ts):
+ * exp(−iGτ) = e^{−ig₀τ}[cos(|h|τ) − i sin(|h|τ) ĥ·σ]. out may not alias S.
+ */
+export function propagateTwo(
+  gRe: Float64Array, gIm: Float64Array, go: number, tau: number,
+  sRe: Float64Array, sIm: Float64Array, so: number,
+  outRe: Float64Array, outIm: Float64Array, oo: number,
+): void {
+  const a = gRe[go], d = gRe[go + 3];
+  const hx = 0.5 * (gRe[go + 2] + gRe[go + 1]), hy = 0.5 * (gIm[go + 2] - gIm[go + 1]);
+  const h0 = 0.5 * (a + d), hz = 0.5 * (a - d);
+  const r = Math.sqrt(hx * hx + hy * hy + hz * hz);
+  const phi = r * tau;
+  const c = Math.cos(phi);
+  const sn = Math.abs(phi) < 1e-4 ? tau * (1 - (phi * phi) / 6) : Math.sin(phi) / r;
+  const gr = Math.cos(h0 * tau), gi = -Math.sin(h0 * tau);
+  // M = [[c − i s hz, −s hy − i s hx], [s hy − i s hx, c + i s hz]] times e^{−ig₀τ}.
+  const x00r = gr * c + gi * sn * hz, x00i = gi * c - gr * sn * hz;
+  const x01r = -gr * sn * hy + gi * sn * hx, x01i = -gi * sn * hy - gr * sn * hx;
+  const x10r = gr * sn * hy + gi * sn * hx, x10i = gi * sn * hy - gr * sn * hx;
+  const x11r = gr * c - gi * sn * hz, x11i = gi * c + gr * sn * hz;
+  const s00r = sRe[so], s00i = sIm[so], s01r = sRe[so + 1], s01i = sIm[so + 1];
+  const s10r = sRe[so + 2], s10i = sIm[so + 2], s11r = sRe[so + 3], s11i = sIm[so + 3];
+  outRe[oo] = x00r * s00r - x00i * s00i + x01r * s10r - x01i * s10i;
+  outIm[oo] = x00r * s00i + x00i * s00r + x01r * s10i + x01i * s10r;
+  outRe[oo + 1] = x00r * s01r - x00i * s01i + x01r * s11r - x01i * s11i;
+  outIm[oo + 1] = x00r * s01i + x00i * s01r + x01r * s11i + x01i * s11r;
+  outRe[oo + 2] = x10r * s00r - x10i * s00i + x11r * s10r - x11i * s10i;
+  outIm[oo + 2] = x10r * s00i + x10i * s00r + x11r * s10i + x11i * s10r;
+  outRe[oo + 3] = x10r * s01r - x10i * s01i + x11r * s11r - x11i * s11i;
+  outIm[oo + 3] = x10r * s01i + x10i * s01r + x11r * s11i + x11i * s11r;
+}
+
+const uRe = new Float64Array(4), uIm = new Float64Array(4);
+
+/**
+ * Writes V = U Q_F diag(e^{iφ_b}) Q_F† for every cut at momentum k, with
+ * U = exp(−iGτ) S (G the piece's generator, S the propagator at the start of
+ * the piece) and φ_b = θ_b · phaseScale.
  */
 export function framesTwo(
   k: number,
-  lam: Float64Array, qRe: Float64Array, qIm: Float64Array, tau: number,
+  gRe: Float64Array, gIm: Float64Array, tau: number,
   sRe: Float64Array, sIm: Float64Array,
   fRe: Float64Array, fIm: Float64Array,
   theta: Float64Array[], phaseScale: number,
   vRe: Float64Array[], vIm: Float64Array[],
 ): void {
   const o = 4 * k;
-  const l0 = lam[2 * k] * tau, l1 = lam[2 * k + 1] * tau;
-  const e0r = Math.cos(l0), e0i = -Math.sin(l0), e1r = Math.cos(l1), e1i = -Math.sin(l1);
-  const q00r = qRe[o], q00i = qIm[o], q01r = qRe[o + 1], q01i = qIm[o + 1];
-  const q10r = qRe[o + 2], q10i = qIm[o + 2], q11r = qRe[o + 3], q11i = qIm[o + 3];
-  // Z = Q diag(e): columns scaled.
-  const z00r = q00r * e0r - q00i * e0i, z00i = q00r * e0i + q00i * e0r;
-  const z10r = q10r * e0r - q10i * e0i, z10i = q10r * e0i + q10i * e0r;
-  const z01r = q01r * e1r - q01i * e1i, z01i = q01r * e1i + q01i * e1r;
-  const z11r = q11r * e1r - q11i * e1i, z11i = q11r * e1i + q11i * e1r;
-  // E = Z Q†: E_ij = Σ_a Z_ia conj(Q_ja).
-  const x00r = z00r * q00r + z00i * q00i + z01r * q01r + z01i * q01i;
-  const x00i = z00i * q00r - z00r * q00i + z01i * q01r - z01r * q01i;
-  const x01r = z00r * q10r + z00i * q10i + z01r * q11r + z01i * q11i;
-  const x01i = z00i * q10r - z00r * q10i + z01i * q11r - z01r * q11i;
-  const x10r = z10r * q00r + z10i * q00i + z11r * q01r + z11i * q01i;
-  const x10i = z10i * q00r - z10r * q00i + z11i * q01r - z11r * q01i;
-  const x11r = z10r * q10r + z10i * q10i + z11r * q11r + z11i * q11i;
-  const x11i = z10i * q10r - z10r * q10i + z11i * q11r - z11r * q11i;
-  // U = E S.
-  const s00r = sRe[o], s00i = sIm[o], s01r = sRe[o + 1], s01i = sIm[o + 1];
-  const s10r = sRe[o + 2], s10i = sIm[o + 2], s11r = sRe[o + 3], s11i = sIm[o + 3];
-  const u00r = x00r * s00r - x00i * s00i + x01r * s10r - x01i * s10i;
-  const u00i = x00r * s00i + x00i * s00r + x01r * s10i + x01i * s10r;
-  const u01r = x00r * s01r - x00i * s01i + x01r * s11r - x01i * s11i;
-  const u01i = x00r * s01i + x00i * s01r + x01r * s11i + x01i * s11r;
-  const u10r = x10r * s00r - x10i * s00i + x11r * s10r - x11i * s10i;
-  const u10i = x10r * s00i + x10i * s00r + x11r * s10i + x11i * s10r;
-  const u11r = x10r * s01r - x10i * s01i + x11r * s11r - x11i * s11i;
-  const u11i = x10r * s01i + x10i * s01r + x11r * s11i + x11i * s11r;
+  propagateTwo(gRe, gIm, o, tau, sRe, sIm, o, uRe, uIm, 0);
+  const u00r = uRe[0], u00i = uIm[0], u01r = uRe[1], u01i = uIm[1];
+  const u10r = uRe[2], u10i = uIm[2], u11r = uRe[3], u11i = uIm[3];
   // W = U Q_F.
   const f00r = fRe[o], f00i = fIm[o], f01r = fRe[o + 1], f01i = fIm[o + 1];
   const f10r = fRe[o + 2], f10i = fIm[o + 2], f11r = fRe[o + 3], f11i = fIm[o + 3];
@@ -83,43 +94,25 @@ export function framesTwo(
 
 /**
  * Σ over the grid of Tr(A_t [A₁, A₂]) for one cut at one time node, with
- * A_μ = V†∂_μV by central differences (coefficients `coef`, scaled by the axis
- * sizes), A_t = i(X − V†HV). Returns the real part; the imaginary part is
- * written to out[0].
+ * A_μ = V†D_μ (D_μ the central differences of V along σ_μ, precomputed) and
+ * A_t = i(X − V†HV). Returns the real part; the imaginary part is written to out[0].
  */
 export function densitySumTwo(
-  n1: number, n2: number, coef: Float64Array,
+  count: number,
   vr: Float64Array, vi: Float64Array,
+  d1r: Float64Array, d1i: Float64Array, d2r: Float64Array, d2i: Float64Array,
   hRe: Float64Array, hIm: Float64Array,
   xRe: Float64Array, xIm: Float64Array,
   out: Float64Array,
 ): number {
   let acc = 0, accIm = 0;
-  const r = coef.length;
-  for (let i1 = 0; i1 < n1; i1++) {
-    for (let i2 = 0; i2 < n2; i2++) {
-      const o = 4 * (i1 * n2 + i2);
-      let a00r = 0, a00i = 0, a01r = 0, a01i = 0, a10r = 0, a10i = 0, a11r = 0, a11i = 0;
-      let b00r = 0, b00i = 0, b01r = 0, b01i = 0, b10r = 0, b10i = 0, b11r = 0, b11i = 0;
-      for (let s = 1; s <= r; s++) {
-        const c1 = coef[s - 1] * n1, c2 = coef[s - 1] * n2;
-        let ip = i1 + s, im = i1 - s;
-        if (ip >= n1) ip -= n1;
-        if (im < 0) im += n1;
-        const p1 = 4 * (ip * n2 + i2), m1 = 4 * (im * n2 + i2);
-        let jp = i2 + s, jm = i2 - s;
-        if (jp >= n2) jp -= n2;
-        if (jm < 0) jm += n2;
-        const p2 = 4 * (i1 * n2 + jp), m2 = 4 * (i1 * n2 + jm);
-        a00r += c1 * (vr[p1] - vr[m1]); a00i += c1 * (vi[p1] - vi[m1]);
-        a01r += c1 * (vr[p1 + 1] - vr[m1 + 1]); a01i += c1 * (vi[p1 + 1] - vi[m1 + 1]);
-        a10r += c1 * (vr[p1 + 2] - vr[m1 + 2]); a10i += c1 * (vi[p1 + 2] - vi[m1 + 2]);
-        a11r += c1 * (vr[p1 + 3] - vr[m1 + 3]); a11i += c1 * (vi[p1 + 3] - vi[m1 + 3]);
-        b00r += c2 * (vr[p2] - vr[m2]); b00i += c2 * (vi[p2] - vi[m2]);
-        b01r += c2 * (vr[p2 + 1] - vr[m2 + 1]); b01i += c2 * (vi[p2 + 1] - vi[m2 + 1]);
-        b10r += c2 * (vr[p2 + 2] - vr[m2 + 2]); b10i += c2 * (vi[p2 + 2] - vi[m2 + 2]);
-        b11r += c2 * (vr[p2 + 3] - vr[m2 + 3]); b11i += c2 * (vi[p2 + 3] - vi[m2 + 3]);
-      }
+  for (let k = 0; k < count; k++) {
+    {
+      const o = 4 * k;
+      const a00r = d1r[o], a00i = d1i[o], a01r = d1r[o + 1], a01i = d1i[o + 1];
+      const a10r = d1r[o + 2], a10i = d1i[o + 2], a11r = d1r[o + 3], a11i = d1i[o + 3];
+      const b00r = d2r[o], b00i = d2i[o], b01r = d2r[o + 1], b01i = d2i[o + 1];
+      const b10r = d2r[o + 2], b10i = d2i[o + 2], b11r = d2r[o + 3], b11i = d2i[o + 3];
       // conj(V) entries.
       const v00r = vr[o], v00i = -vi[o], v01r = vr[o + 1], v01i = -vi[o + 1];
       const v10r = vr[o + 2], v10i = -vi[o + 2], v11r = vr[o + 3], v11i = -vi[o + 3];

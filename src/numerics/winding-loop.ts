@@ -20,6 +20,8 @@
  *   the two have the same W.
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
+import type { ComplexMatrix } from './linalg/complex-matrix.ts';
+import { zeros } from './linalg/complex-matrix.ts';
 import type { LatticeDrive } from './drive.ts';
 import { segmentStartTimes } from './drive.ts';
 import type { PreparedBloch } from './bloch.ts';
@@ -106,4 +108,100 @@ export function pieceGenerator(bloch: PreparedBloch, piece: LoopPiece, out: Comp
     }
   }
   return out;
+}
+
+/**
+ * A piece's generator as a trigonometric polynomial in the reduced momenta,
+ * G(s) = Σ_n C_n e^{−2πi s·n}: in the cell gauge of drive.ts every term
+ * contributes e^{−2πi s·n} times a momentum-independent factor (modulation and
+ * Peierls phase included), so the offsets n are those of the terms and their
+ * conjugates. With |n_i| ≤ M_i, sampling G on the (2M₁+1) × (2M₂+1) grid and
+ * inverting the discrete Fourier transform recovers every C_n exactly (the
+ * aliases m ≡ n mod 2M+1 with |m| ≤ M coincide with n). Evaluating the
+ * series is much cheaper than rebuilding the Bloch matrix term by term.
+ */
+export interface GeneratorSeries {
+  /** Matrix size N. */
+  size: number;
+  /** Offsets with a nonzero coefficient. */
+  n1: Int32Array;
+  n2: Int32Array;
+  /** Coefficients C_n, N² entries each, packed in the order of the offsets. */
+  re: Float64Array;
+  im: Float64Array;
+}
+
+export function generatorSeries(drive: LatticeDrive, plan: LoopPlan): GeneratorSeries[] {
+  if (drive.dimension !== 2) throw new RangeError(`generatorSeries: needs a two-dimensional lattice, got dimension ${drive.dimension}`);
+  const n = drive.states.length, nn = n * n;
+  let m1 = 0, m2 = 0;
+  for (const seg of drive.segments) {
+    for (const term of seg.terms) {
+      m1 = Math.max(m1, Math.abs(term.offset[0] ?? 0));
+      m2 = Math.max(m2, Math.abs(term.offset[1] ?? 0));
+    }
+  }
+  const p1 = 2 * m1 + 1, p2 = 2 * m2 + 1;
+  const samples: ComplexMatrix[][] = plan.pieces.map(() => []);
+  const gen = zeros(n, n), scratch = zeros(n, n);
+  for (let j1 = 0; j1 < p1; j1++) {
+    for (let j2 = 0; j2 < p2; j2++) {
+      const bloch = prepareBloch(drive, [j1 / p1, j2 / p2]);
+      plan.pieces.forEach((piece, p) => {
+        pieceGenerator(bloch, piece, gen, scratch);
+        samples[p].push({ rows: n, cols: n, re: gen.re.slice(), im: gen.im.slice() });
+      });
+    }
+  }
+  return samples.map((list) => {
+    const offsets1: number[] = [], offsets2: number[] = [], re: number[] = [], im: number[] = [];
+    let scale = 0;
+    for (const g of list) for (let e = 0; e < nn; e++) scale = Math.max(scale, Math.hypot(g.re[e], g.im[e]));
+    for (let a = -m1; a <= m1; a++) {
+      for (let b = -m2; b <= m2; b++) {
+        const cr = new Float64Array(nn), ci = new Float64Array(nn);
+        list.forEach((g, idx) => {
+          const j1 = Math.floor(idx / p2), j2 = idx % p2;
+          const arg = 2 * Math.PI * ((j1 * a) / p1 + (j2 * b) / p2);
+          const c = Math.cos(arg), s = Math.sin(arg);
+          for (let e = 0; e < nn; e++) {
+            cr[e] += g.re[e] * c - g.im[e] * s;
+            ci[e] += g.re[e] * s + g.im[e] * c;
+          }
+        });
+        let size = 0;
+        for (let e = 0; e < nn; e++) {
+          cr[e] /= p1 * p2;
+          ci[e] /= p1 * p2;
+          size = Math.max(size, Math.hypot(cr[e], ci[e]));
+        }
+        // Coefficients at rounding level are aliases of nothing: drop them.
+        if (size <= 1e-14 * Math.max(scale, 1e-300)) continue;
+        offsets1.push(a);
+        offsets2.push(b);
+        re.push(...cr);
+        im.push(...ci);
+      }
+    }
+    return { size: n, n1: Int32Array.from(offsets1), n2: Int32Array.from(offsets2), re: Float64Array.from(re), im: Float64Array.from(im) };
+  });
+}
+
+/** Writes G(s) of a series into outRe/outIm at `offset` (N² entries). */
+export function generatorAt(series: GeneratorSeries, s1: number, s2: number, outRe: Float64Array, outIm: Float64Array, offset: number): void {
+  const nn = series.size * series.size;
+  for (let e = 0; e < nn; e++) {
+    outRe[offset + e] = 0;
+    outIm[offset + e] = 0;
+  }
+  for (let q = 0; q < series.n1.length; q++) {
+    const arg = -2 * Math.PI * (s1 * series.n1[q] + s2 * series.n2[q]);
+    const c = Math.cos(arg), s = Math.sin(arg);
+    const base = q * nn;
+    for (let e = 0; e < nn; e++) {
+      const xr = series.re[base + e], xi = series.im[base + e];
+      outRe[offset + e] += xr * c - xi * s;
+      outIm[offset + e] += xr * s + xi * c;
+    }
+  }
 }

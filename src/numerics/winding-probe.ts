@@ -48,12 +48,17 @@ const wrap = (x: number) => x - Math.floor(x);
 /** |a − b| on the unit circle of reduced momenta. */
 const periodicGap = (a: number, b: number) => Math.abs(a - b - Math.round(a - b));
 
-/** Compass search with Newton steps on f = d², from `start` with initial step `step`. */
-function polish(f: (s: number[]) => number, start: [number, number], step: number): { at: [number, number]; value: number } {
+/**
+ * Compass search with Newton steps on f = d², from `start` with initial step
+ * `step`. It stops once the step is below `relative` × (the local width d/v,
+ * v² ≈ ∂²f/2 from the stencil) — enough to place a focus — or below 1e-11, or
+ * when d drops under `floor` (a closing, which is all the caller needs to know).
+ */
+function polish(f: (s: number[]) => number, start: [number, number], step: number, floor: number, relative = 0.02): { at: [number, number]; value: number } {
   let x: [number, number] = [start[0], start[1]];
   let fx = f(x);
   let h = step;
-  for (let iter = 0; iter < 200 && h > 1e-11 && fx > 0; iter++) {
+  for (let iter = 0; iter < 200 && h > 1e-11 && fx > floor * floor; iter++) {
     const p1 = f([x[0] + h, x[1]]), m1 = f([x[0] - h, x[1]]);
     const p2 = f([x[0], x[1] + h]), m2 = f([x[0], x[1] - h]);
     const pp = f([x[0] + h, x[1] + h]);
@@ -83,6 +88,8 @@ function polish(f: (s: number[]) => number, start: [number, number], step: numbe
       fx = best.value;
       if (moved < h) h = Math.max(moved, h / 4);
     } else {
+      const curvature = Math.max(h11, h22, 0) / 2;
+      if (curvature > 0 && h * Math.sqrt(curvature) < relative * Math.sqrt(fx)) break;
       h /= 4;
     }
   }
@@ -93,7 +100,10 @@ function polish(f: (s: number[]) => number, start: [number, number], step: numbe
  * Probes the distance from `cut` (units π/T) to the spectrum on a probeGrid ×
  * probeGrid grid, polishes up to `maxFoci` local minima and estimates their widths.
  */
-export function probeCut(spectrum: SpectrumAt, cut: number, probeGrid: number, maxFoci = 6): CutProbe {
+export function probeCut(spectrum: SpectrumAt, cut: number, probeGrid: number, options: { maxFoci?: number; sharpWidth?: number; floor?: number } = {}): CutProbe {
+  const maxFoci = options.maxFoci ?? 6;
+  const sharpWidth = options.sharpWidth ?? Infinity;
+  const floor = options.floor ?? 0;
   let evaluations = 0;
   const d = (s: number[]) => {
     evaluations++;
@@ -122,10 +132,19 @@ export function probeCut(spectrum: SpectrumAt, cut: number, probeGrid: number, m
     }
   }
   minima.sort((a, b) => grid[a] - grid[b]);
+  // A grid minimum can only hide a sharp focus if d/v, with v the largest slope towards its
+  // neighbours, is below twice the width of interest (a closing between grid points has d ≈ v h).
+  const slope = (idx: number) => {
+    const i = Math.floor(idx / n), j = idx % n;
+    let v = 0;
+    for (const [a, b] of [[1, 0], [-1, 0], [0, 1], [0, -1]]) v = Math.max(v, (grid[((i + a + n) % n) * n + ((j + b + n) % n)] - grid[idx]) * n);
+    return v;
+  };
+  const worth = minima.filter((idx, rank) => rank === 0 || grid[idx] < 2 * sharpWidth * slope(idx));
   const foci: CutFocus[] = [];
-  for (const idx of minima.slice(0, maxFoci)) {
+  for (const idx of worth.slice(0, maxFoci)) {
     const start: [number, number] = [Math.floor(idx / n) / n, (idx % n) / n];
-    const best = polish((s) => d(s) ** 2, start, 1 / n);
+    const best = polish((s) => d(s) ** 2, start, 1 / n, floor);
     const dist = Math.sqrt(best.value);
     const dw = 0.25 / n;
     const widths = [0, 1].map((axis) => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { blochHamiltonian, kickGenerator, prepareBloch } from '../../src/numerics/bloch.ts';
 import type { DriveTerm, LatticeDrive } from '../../src/numerics/drive.ts';
-import { distance, hermiticityDefect } from '../../src/numerics/linalg/complex-matrix.ts';
+import { distance, hermiticityDefect, zeros } from '../../src/numerics/linalg/complex-matrix.ts';
 import { seededRandom } from '../support/random.ts';
 import { expectBelow, expectWithin } from './linalg/helpers.ts';
 
@@ -110,6 +110,14 @@ describe('blochHamiltonian', () => {
     // At the boundary t = 0.8 the later segment applies (the harmonic one, mean 0.3 …).
     expect(p.segmentIndexAt(0.8)).toBe(1);
     expect(p.segmentIndexAt(2)).toBe(1);
+    // Node tables (shared across momenta) give the same matrices as direct evaluation.
+    const times = [0.9, 1.4, 1.95];
+    const other = prepareBloch(drive, [0.8, 0.1]);
+    const first = p.tableSampler(1, 'probe', times), second = other.tableSampler(1, 'probe', times);
+    times.forEach((t, j) => {
+      expectBelow(`node ${j} at s=(0.3, 0.6)`, distance(first(j, zeros(3, 3)), p.segmentAt(1, t)), 1e-15);
+      expectBelow(`node ${j} at s=(0.8, 0.1)`, distance(second(j, zeros(3, 3)), other.segmentAt(1, t)), 1e-15);
+    });
   });
 
   it('returns the kick generator K of a zero-duration segment', () => {

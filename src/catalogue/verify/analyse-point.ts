@@ -43,7 +43,16 @@ export function analysePoint(
   stages.compile = performance.now() - t;
   const labels = claimedGapLabels(claims);
   for (const l of options.extraLabels ?? []) if (!labels.some((x) => sameLabel(x, l))) labels.push(l);
-  const request: AnalysisRequest = { labels, hints: loaded.document.numerics, skip: options.skip ?? new Set(), symmetricTimes: options.symmetricTimes };
+  const cutClaim = claims.find((c) => c.kind === 'chern');
+  const ribbonDirections = [...new Set(claims.flatMap((c) => (c.kind === 'edge-modes' ? [c.finiteAlong] : [])))].sort();
+  const request: AnalysisRequest = {
+    labels,
+    hints: loaded.document.numerics,
+    skip: options.skip ?? new Set(),
+    symmetricTimes: options.symmetricTimes,
+    ribbonDirections,
+    ...(cutClaim?.kind === 'chern' ? { cut: cutClaim.cut } : {}),
+  };
   const dimension = compiled.drive.dimension;
   t = performance.now();
   if (dimension === 2) {

@@ -34,23 +34,35 @@ export interface AnomalousFlag {
 export const ANOMALOUS_DEFINITION =
   'Two dimensions: anomalous when every quasienergy gap carries a nonzero winding number W (no static Hamiltonian has this edge spectrum); Chern-trivial anomalous when in addition every band has Chern number 0. One dimension: anomalous when the invariant of the gap at π/T is nonzero (end modes at quasienergy π/T).';
 
+/**
+ * Per gap, the winding number W decides; when W is unsettled (or not computed)
+ * a settled signed edge count stands in for it, since the count on each edge
+ * of a wide ribbon equals ±W (bulk–edge correspondence, Rudner et al. 2013).
+ */
 export function classifySheet(entries: PortraitEntry[]): AnomalousFlag {
-  const windings = entries.filter((e) => e.quantity === 'winding');
+  const gaps = [...new Set(entries.filter((e) => (e.quantity === 'winding' || e.quantity === 'edge-modes') && e.gap !== null).map((e) => e.gap as number))];
   const cherns = entries.filter((e) => e.quantity === 'chern');
-  if (windings.length === 0) return { classification: 'undetermined', reason: 'no open quasienergy gap was found, so no winding number is defined' };
-  const zero = windings.find((w) => w.settled && w.value === 0);
+  if (gaps.length === 0) return { classification: 'undetermined', reason: 'no open quasienergy gap was found, so no winding number is defined' };
+  const perGap = gaps.map((gap) => {
+    const w = entries.find((e) => e.quantity === 'winding' && e.gap === gap);
+    if (w?.settled) return { gap, value: w.value as number, label: w.label, source: 'W' };
+    const edge = entries.find((e) => e.quantity === 'edge-modes' && e.gap === gap && e.settled);
+    if (edge) return { gap, value: Math.abs(edge.value as number), label: edge.label, source: 'edge' };
+    return { gap, value: null, label: w?.label ?? `the gap at ${gap}`, source: 'none' };
+  });
+  const zero = perGap.find((g) => g.value === 0);
   if (zero) return { classification: 'not-anomalous', reason: `${zero.label} is 0` };
-  const unsettled = windings.find((w) => !w.settled);
+  const unsettled = perGap.find((g) => g.value === null);
   if (unsettled) return { classification: 'undetermined', reason: `${unsettled.label} is unsettled` };
-  const values = windings.map((w) => w.value).join(', ');
+  const values = perGap.map((g) => (g.source === 'W' ? `W = ${g.value}` : `|edge count| = ${g.value}`)).join(', ');
   if (cherns.length > 0 && cherns.every((c) => c.settled && c.value === 0)) {
-    return { classification: 'chern-trivial-anomalous', reason: `every gap has W ≠ 0 (${values}) and every band has C = 0` };
+    return { classification: 'chern-trivial-anomalous', reason: `every gap carries chiral modes (${values}) and every band has C = 0` };
   }
   const unsettledChern = cherns.find((c) => !c.settled);
-  if (unsettledChern) {
-    return { classification: 'anomalous', reason: `every gap has W ≠ 0 (${values}); ${unsettledChern.label} is unsettled, so Chern-triviality is not decided` };
+  if (unsettledChern || cherns.length === 0) {
+    return { classification: 'anomalous', reason: `every gap carries chiral modes (${values}); ${unsettledChern ? `${unsettledChern.label} is unsettled` : 'no band Chern number was computed'}, so Chern-triviality is not decided` };
   }
-  return { classification: 'anomalous', reason: `every gap has W ≠ 0 (${values}), with nonzero band Chern numbers (${cherns.map((c) => c.value).join(', ')})` };
+  return { classification: 'anomalous', reason: `every gap carries chiral modes (${values}), with nonzero band Chern numbers (${cherns.map((c) => c.value).join(', ')})` };
 }
 
 /** One dimension: `piInvariant` is the portrait entry of the gap at π/T, if any. */
@@ -66,6 +78,6 @@ export function anomalousClaimHolds(flag: AnomalousFlag, dimension: number): boo
   if (flag.classification === 'undetermined') return null;
   if (dimension === 1) return flag.classification === 'anomalous';
   // A flag 'anomalous' with a Chern number still unsettled cannot decide the claim.
-  if (flag.classification === 'anomalous' && /unsettled/.test(flag.reason)) return null;
+  if (flag.classification === 'anomalous' && /not decided/.test(flag.reason)) return null;
   return flag.classification === 'chern-trivial-anomalous';
 }

@@ -32,7 +32,26 @@ function symmetryFor(view: ChainView, policy: VerdictPolicy) {
 function invariantEvidence(view: ChainView, label: number, policy: VerdictPolicy): SettledInteger {
   const gap = findGap(view.gaps, label);
   const inv = gap ? view.invariants.find((i) => sameLabel(i.gap, gap.label)) : undefined;
-  return judgeEstimate(inv?.estimate, [gapEvidence(view, label, policy)], policy, 'invariant', symmetryFor(view, policy));
+  const symmetry = (inv?.symmetry ?? []).map((s) => ({ ...s, tolerance: Math.max(s.tolerance, policy.symmetryTolerance) }));
+  const fromFrames = inv?.fromFrames === true && view.frames.length > 0;
+  const ev = judgeEstimate(inv?.estimate, [gapEvidence(view, label, policy)], policy, inv?.kind === 'z2' ? 'majorana' : 'invariant', symmetry, inv?.signDecided === true || fromFrames);
+  if (fromFrames) {
+    // ν₀ = (ν′ + ν″)/2 and ν_π = (ν′ − ν″)/2 are only as stable as the frame windings they come from.
+    for (const { frame, ev: fe } of frameEvidence(view, policy)) {
+      ev.certificate.refinement.push(...fe.certificate.refinement.map((step) => ({ grid: [...step.grid], value: step.value })));
+      if (!fe.settled) {
+        const why = `${frameSymbol(frame.name)} (frame t₀ = ${Number(frame.time.toPrecision(6))}) is unsettled`;
+        ev.reasons.push(why);
+        ev.certificate.notes.push(why);
+      }
+    }
+    ev.certificate.notes.push('computed as (ν′ ± ν″)/2 from the frame windings; the refinement history lists ν′ then ν″');
+    if (ev.reasons.length > 0) {
+      ev.settled = false;
+      ev.value = null;
+    }
+  }
+  return ev;
 }
 
 function endModeEvidence(view: ChainView, label: number, policy: VerdictPolicy): SettledInteger {
@@ -100,6 +119,8 @@ export function judgeChain(view: ChainView, claims: NormalizedClaim[], policy: V
       case 'minimal-gap':
         verdicts.push(minimalGapVerdict(claim, gapEvidence(view, claim.gap, policy)));
         break;
+      case 'anomalous':
+        break; // judged from the whole portrait (analyse-point.ts)
       default:
         verdicts.push(notApplicable(claim, 'a one-dimensional model'));
     }

@@ -12,6 +12,12 @@ export interface ChainInvariant {
   /** Integer winding (chiral classes) or Z₂ index 0/1 (class D). */
   kind: 'winding' | 'z2';
   estimate: IntegerEstimate;
+  /** Symmetry relations the invariant rests on, with residuals and tolerances. */
+  symmetry: { name: string; residual: number; tolerance: number }[];
+  /** True when the value is not refined on grids but decided by a sign with a margin (Pfaffian signs). */
+  signDecided?: boolean;
+  /** True for ν₀, ν_π computed from the frame windings: their stability under refinement is that of the frames. */
+  fromFrames?: boolean;
 }
 
 export interface FrameWinding {
@@ -46,5 +52,7 @@ export interface ChainView {
   propagatorAccuracy: number | null;
   /** The engine's gap tolerance (units π/T). */
   gapTolerance?: number;
+  /** Largest band velocity (units π/T per unit of reduced momentum). */
+  velocity?: number;
   timings: Record<string, number>;
 }

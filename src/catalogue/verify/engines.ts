@@ -18,6 +18,10 @@ export interface AnalysisRequest {
   skip: ReadonlySet<'chern' | 'winding' | 'edges'>;
   /** Start times of the chiral symmetric frames (chains), evaluated. */
   symmetricTimes: number[];
+  /** Gap the claimed band Chern numbers are counted from (units π/T), if claimed. */
+  cut?: number;
+  /** Finite directions of the ribbons claims refer to (2D); empty: the hint's or the default one. */
+  ribbonDirections: number[];
 }
 
 export interface EngineSet {

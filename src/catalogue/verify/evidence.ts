@@ -4,7 +4,9 @@
  *   1. every gap it depends on is open by more than the gap tolerance
  *      (policy.ts: max(floor, safety · band velocity · grid spacing));
  *   2. its residual |x − round x| is within tolerance and the engine marked it converged;
- *   3. the last two refinement steps round to the same integer (when required);
+ *   3. the last two refinement steps round to the same integer (when required;
+ *      a Z₂ index decided by a sign with a margin has no refinement and the
+ *      margin test in its estimate stands in for it);
  *   4. every symmetry it relies on holds to the symmetry tolerance.
  * Otherwise it is unsettled and the reasons say which test failed, in words.
  */
@@ -30,6 +32,7 @@ export function judgeEstimate(
   policy: VerdictPolicy,
   stage: string,
   symmetry: { name: string; residual: number; tolerance: number }[] = [],
+  signDecided = false,
 ): SettledInteger {
   if (!estimate) {
     const certificate: Certificate = {
@@ -63,7 +66,7 @@ export function judgeEstimate(
   }
   if (estimate.caveat) reasons.push(estimate.caveat);
   if (!estimate.converged && reasons.length === 0) reasons.push('refinement did not converge');
-  if (policy.requireStableRefinement) {
+  if (policy.requireStableRefinement && !signDecided) {
     const h = estimate.history;
     if (h.length < 2) reasons.push('computed on a single grid: stability under refinement not shown');
     else if (Math.round(h[h.length - 1].value) !== Math.round(h[h.length - 2].value)) {
@@ -76,7 +79,7 @@ export function judgeEstimate(
     if (!(s.residual <= s.tolerance)) reasons.push(`${s.name} holds only to ${s.residual.toPrecision(3)} (tolerance ${s.tolerance.toPrecision(3)})`);
   }
   certificate.notes = [...new Set([...certificate.notes, ...reasons])];
-  const nearest = Number.isFinite(estimate.raw) ? Math.round(estimate.raw) : null;
+  const nearest = Number.isFinite(estimate.raw) ? Math.round(estimate.raw) + 0 : null; // + 0 turns −0 into 0
   const settled = reasons.length === 0;
   return { value: settled ? nearest : null, nearest, settled, reasons, certificate };
 }

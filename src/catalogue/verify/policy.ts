@@ -14,8 +14,9 @@ export interface VerdictPolicy {
    *   max(gapFloor, velocitySafety · v · Δs),
    * v = π · (width of the adjacent band groups) in units π/T per unit of
    * reduced momentum (the steepest slope of a cosine band of that width) and
-   * Δs = 1 / (smallest grid size). This keeps a near-critical model from
-   * being confirmed by luck on a coarse grid.
+   * Δs = 1 / (smallest grid size). When an engine reports the band velocity
+   * itself (chains), that value replaces the estimate. This keeps a
+   * near-critical model from being confirmed by luck on a coarse grid.
    */
   velocitySafety: number;
   /** Accept an integer only if the last two refinement steps round to the same value. */

@@ -55,13 +55,16 @@ export interface GapSource {
   bands: BandGroupReport[];
   grid: number[];
   gapTolerance?: number;
+  /** Largest band velocity (units π/T per unit of reduced momentum) when the engine reports it; else π × band width is used. */
+  velocity?: number;
 }
 
 export function gapEvidence(portrait: GapSource, label: number, policy: VerdictPolicy): GapEvidence {
   const floor = Math.max(policy.gapFloor, portrait.gapTolerance ?? 0);
   const gap = findGap(portrait.gaps, label);
   if (!gap) return { gap: label, minimalGap: 0, at: [], tolerance: floor, open: false };
-  const tolerance = gapTolerance({ ...policy, gapFloor: floor }, adjacentWidth(portrait.bands, gap.label), portrait.grid);
+  const width = portrait.velocity !== undefined ? portrait.velocity / Math.PI : adjacentWidth(portrait.bands, gap.label);
+  const tolerance = gapTolerance({ ...policy, gapFloor: floor }, width, portrait.grid);
   return { gap: gap.label, minimalGap: gap.minimalGap, at: [...gap.momentumAtMinimum], tolerance, open: gap.open && gap.minimalGap > tolerance };
 }
 
@@ -178,17 +181,22 @@ export function judgeSheet(p: SheetPortrait, claims: NormalizedClaim[], policy: 
       }
       case 'chern': {
         const ordered = bandsFromCut(p.bands, claim.cut);
-        const band = ordered?.[claim.band];
+        const claimedBands = claims.filter((c) => c.kind === 'chern' && sameLabel(c.cut, claim.cut)).length;
+        const band = ordered && ordered.length === claimedBands ? ordered[claim.band] : undefined;
         if (!band) {
           const certificate = emptyCertificate('chern');
-          const why = ordered
-            ? `only ${ordered.length} band group(s) lie between open gaps above the cut at ${formatQuasienergy(claim.cut)} (bands that touch count as one group)`
-            : `no open gap was found at the cut ${formatQuasienergy(claim.cut)}`;
+          certificate.grid = [...p.grid];
+          certificate.gaps = p.gaps.map((g) => gapEvidence(p, g.label, policy));
+          // A different number of band groups means a gap the claim relies on is closed (or an
+          // unexpected one is open): the band a claim names is then not the band computed.
+          const why = !ordered
+            ? `no open gap was found at the cut ${formatQuasienergy(claim.cut)}`
+            : `the file claims ${claimedBands} band(s) above the cut at ${formatQuasienergy(claim.cut)}, but ${ordered.length} band group(s) lie between open gaps (bands that touch count as one group; open gaps: ${p.gaps.filter((g) => g.open).map((g) => formatQuasienergy(g.label)).join(', ') || 'none'})`;
           certificate.notes.push(why);
           verdicts.push({
             claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.cut, outcome: 'unsettled', claimed: claim.value,
             computed: null, estimate: null, message: `The Chern number of band ${claim.band} above the cut is ill-defined: ${why}.`,
-            hint: 'check claims.bands.cut and that the claimed bands are separated by open gaps', certificate,
+            hint: 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch', certificate,
           });
           break;
         }
@@ -206,6 +214,8 @@ export function judgeSheet(p: SheetPortrait, claims: NormalizedClaim[], policy: 
       case 'minimal-gap':
         verdicts.push(minimalGapVerdict(claim, gapEvidence(p, claim.gap, policy)));
         break;
+      case 'anomalous':
+        break; // judged from the whole portrait (analyse-point.ts)
       default:
         verdicts.push(notApplicable(claim, 'a two-dimensional model'));
     }

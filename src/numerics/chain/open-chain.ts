@@ -23,6 +23,7 @@ import type { PropagatorOptions } from '../propagator.ts';
 import { floquetOperator } from '../propagator.ts';
 import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
 import { truncateDrive } from '../supercell.ts';
+import { wrapQuasienergy as wrap } from '../quasienergy-bands.ts';
 import type { BulkGaps } from './bulk-gaps.ts';
 import { bulkGaps } from './bulk-gaps.ts';
 
@@ -196,10 +197,4 @@ export function fitDecay(density: Float64Array, fromHighEnd: boolean): EndModeFi
   let r2 = 0;
   for (let i = 0; i < m; i++) r2 += (ys[i] - (my + slope * (xs[i] - mx))) ** 2;
   return { length: slope < 0 ? -2 / slope : Infinity, rmsResidual: Math.sqrt(r2 / m), cells: m };
-}
-
-function wrap(x: number): number {
-  let y = x - 2 * Math.floor((x + 1) / 2);
-  if (y <= -1) y += 2;
-  return y;
 }

@@ -132,18 +132,29 @@ function householderQl(a: ComplexMatrix, wantVectors: boolean): { values: Float6
     const tau = 1 / (sigma * (sigma + x0abs));
     subRe[k] = -phr * sigma;
     subIm[k] = -phi * sigma;
-    // p = τ B v over the trailing block.
-    let kr = 0;
+    // p = τ B v over the trailing block, reading only its lower triangle: each stored
+    // B_ij (j < i) contributes B_ij v_j to p_i and conj(B_ij) v_i to p_j (as in LAPACK's zhetd2).
+    pr.fill(0, 0, m);
+    pi.fill(0, 0, m);
     for (let i = 0; i < m; i++) {
       const row = (off + i) * n + off;
+      const vir = vr[i], vii = vi[i];
       let sr = 0, si = 0;
-      for (let j = 0; j < m; j++) {
+      for (let j = 0; j < i; j++) {
         const xr = br[row + j], xi = bi[row + j];
         sr += xr * vr[j] - xi * vi[j];
         si += xr * vi[j] + xi * vr[j];
+        pr[j] += xr * vir + xi * vii;
+        pi[j] += xr * vii - xi * vir;
       }
-      pr[i] = tau * sr;
-      pi[i] = tau * si;
+      const dr = br[row + i];
+      pr[i] += sr + dr * vir;
+      pi[i] += si + dr * vii;
+    }
+    let kr = 0;
+    for (let i = 0; i < m; i++) {
+      pr[i] *= tau;
+      pi[i] *= tau;
       kr += vr[i] * pr[i] + vi[i] * pi[i]; // Re(v† p)
     }
     const kk = 0.5 * tau * kr;
@@ -151,11 +162,11 @@ function householderQl(a: ComplexMatrix, wantVectors: boolean): { values: Float6
       pr[i] -= kk * vr[i];
       pi[i] -= kk * vi[i];
     }
-    // B ← B − v w† − w v†
+    // B ← B − v w† − w v† on the lower triangle (the upper triangle is never read again).
     for (let i = 0; i < m; i++) {
       const row = (off + i) * n + off;
       const vir = vr[i], vii = vi[i], wir = pr[i], wii = pi[i];
-      for (let j = 0; j < m; j++) {
+      for (let j = 0; j <= i; j++) {
         // v_i conj(w_j) + w_i conj(v_j)
         br[row + j] -= vir * pr[j] + vii * pi[j] + wir * vr[j] + wii * vi[j];
         bi[row + j] -= vii * pr[j] - vir * pi[j] + wii * vr[j] - wir * vi[j];

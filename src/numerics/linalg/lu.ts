@@ -132,4 +132,66 @@ export class LuDecomposition {
     }
     return x;
   }
+
+  /**
+   * A⁻¹. Solves L U Y = 1 (so Y = (PA)⁻¹) exploiting that L⁻¹ is lower triangular,
+   * then permutes columns: A⁻¹ = Y P.
+   */
+  inverse(): ComplexMatrix {
+    const n = this.lu.rows;
+    if (this.singular) {
+      throw new MatrixInputError(
+        'LuDecomposition.inverse',
+        `matrix is numerically singular (smallest pivot ${this.smallestPivot.toExponential(3)}); it has no inverse`,
+      );
+    }
+    const yr = new Float64Array(n * n), yi = new Float64Array(n * n);
+    const r = this.lu.re, im = this.lu.im;
+    for (let i = 0; i < n; i++) yr[i * n + i] = 1;
+    // Forward substitution: row i of L⁻¹ has entries only in columns ≤ i.
+    for (let i = 1; i < n; i++) {
+      const ri = i * n;
+      for (let k = 0; k < i; k++) {
+        const lr = r[ri + k], li = im[ri + k];
+        if (lr === 0 && li === 0) continue;
+        const rk = k * n;
+        for (let j = 0; j <= k; j++) {
+          const ar = yr[rk + j], ai = yi[rk + j];
+          yr[ri + j] -= lr * ar - li * ai;
+          yi[ri + j] -= lr * ai + li * ar;
+        }
+      }
+    }
+    // Back substitution with U, full rows.
+    for (let k = n - 1; k >= 0; k--) {
+      const rk = k * n;
+      for (let c = k + 1; c < n; c++) {
+        const ur = r[rk + c], ui = im[rk + c];
+        if (ur === 0 && ui === 0) continue;
+        const rc = c * n;
+        for (let j = 0; j < n; j++) {
+          const ar = yr[rc + j], ai = yi[rc + j];
+          yr[rk + j] -= ur * ar - ui * ai;
+          yi[rk + j] -= ur * ai + ui * ar;
+        }
+      }
+      const ur = r[rk + k], ui = im[rk + k];
+      const den = ur * ur + ui * ui;
+      const invr = ur / den, invi = -ui / den;
+      for (let j = 0; j < n; j++) {
+        const ar = yr[rk + j], ai = yi[rk + j];
+        yr[rk + j] = ar * invr - ai * invi;
+        yi[rk + j] = ar * invi + ai * invr;
+      }
+    }
+    const x = zeros(n, n);
+    for (let row = 0; row < n; row++) {
+      for (let i = 0; i < n; i++) {
+        const dst = row * n + this.pivot[i];
+        x.re[dst] = yr[row * n + i];
+        x.im[dst] = yi[row * n + i];
+      }
+    }
+    return x;
+  }
 }

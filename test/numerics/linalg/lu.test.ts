@@ -52,6 +52,17 @@ describe('LuDecomposition', () => {
     expectWithin('Im det', det.im, -4, 1e-14);
   });
 
+  it('inverts: A·A⁻¹ = 1 and matches mathjs inv (reference: mathjs)', () => {
+    const random = seededRandom(43);
+    for (const n of [1, 3, 7, 15]) {
+      const a = randomComplexMatrix(random, n);
+      const inv = new LuDecomposition(a).inverse();
+      expectBelow(`n=${n} ‖A A⁻¹ − 1‖_F`, distance(multiply(a, inv), identity(n)), 1e-12 * n);
+      expectBelow(`n=${n} vs mathjs inv`, distance(inv, fromMathjs(math.inv(toMathjs(a)) as never)), 1e-11 * n);
+    }
+    expect(() => new LuDecomposition(fromArrays([[1, 1], [1, 1]])).inverse()).toThrow(/LuDecomposition.inverse: matrix is numerically singular/);
+  });
+
   it('flags singular matrices and refuses to solve with them', () => {
     const s = fromArrays([[1, 2], [2, 4]]);
     const lu = new LuDecomposition(s);

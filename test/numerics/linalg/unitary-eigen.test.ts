@@ -37,7 +37,7 @@ describe('UnitaryEigen', () => {
 
   it('satisfies UV = VΛ, V†V = 1 to 1e-13·n and reports its residual truthfully', () => {
     const random = seededRandom(22);
-    for (const n of [1, 2, 3, 4, 9, 30, 64]) {
+    for (const n of [1, 2, 3, 4, 9, 30, 64, 120]) {
       const u = randomUnitary(random, n);
       const e = new UnitaryEigen(u);
       const { residual, orthogonality } = defects(u, e);
@@ -68,7 +68,14 @@ describe('UnitaryEigen', () => {
     ['dense near the first cut', Array.from({ length: 10 }, (_, k) => 2.39996 + (k - 5) * 0.01)],
     ['all but one equal', [1, 1, 1, 1, 1, 1, 1, 1, 1, -1]],
   ];
-  for (const [name, phases] of hardCases) {
+  const smallCases: [string, number[]][] = [
+    ['2×2 splitting 1e-13', [1.1, 1.1 + 1e-13]],
+    ['2×2 at ±π', [Math.PI, -Math.PI + 1e-14]],
+    ['2×2 opposite', [0.4, 0.4 - Math.PI]],
+    ['3×3 splitting 1e-9 at π', [Math.PI, Math.PI - 1e-9, 0]],
+    ['3×3 triple', [-0.7, -0.7, -0.7]],
+  ];
+  for (const [name, phases] of [...hardCases, ...smallCases]) {
     it(`stays accurate for prescribed eigenphases: ${name}`, () => {
       const n = phases.length;
       const u = unitaryWithPhases(randomUnitary(seededRandom(23), n), phases);

@@ -1,0 +1,38 @@
+/**
+ * The production engines: compileModel from the catalogue, analyseSheet for
+ * sheets and the chain engine for chains, with the model file's numerics
+ * hints mapped onto engine options here and nowhere else.
+ */
+import { compileModel } from '../compile.ts';
+import { analyseSheet, type SheetOptions } from '../../numerics/sheet-analysis.ts';
+import type { AnalysisRequest, EngineSet } from './engines.ts';
+import { analyseChainView } from './chain-adapter.ts';
+
+/** Default ribbon direction when no claim names one (the schema's default: finite along a₂). */
+const DEFAULT_FINITE_ALONG = 1;
+
+export function sheetOptions(request: AnalysisRequest): SheetOptions {
+  const hints = request.hints;
+  const options: SheetOptions = {
+    labels: request.labels,
+    run: { chern: !request.skip.has('chern'), winding: !request.skip.has('winding'), edges: !request.skip.has('edges') },
+    ribbon: {
+      directions: request.ribbonDirections.length > 0 ? request.ribbonDirections : [hints?.ribbon?.finiteAlong ?? DEFAULT_FINITE_ALONG],
+      ...(hints?.ribbon?.width !== undefined ? { width: hints.ribbon.width } : {}),
+      ...(hints?.ribbon?.momenta !== undefined ? { momenta: hints.ribbon.momenta } : {}),
+    },
+  };
+  if (hints?.kGrid) options.grid = hints.kGrid.length >= 2 ? hints.kGrid.slice(0, 2) : [hints.kGrid[0], hints.kGrid[0]];
+  if (hints?.tolerances?.gap !== undefined) options.gapTolerance = hints.tolerances.gap;
+  if (hints?.tolerances?.integer !== undefined) options.chern = { tolerance: hints.tolerances.integer };
+  // Model files give the propagator tolerance in units of π/T; the propagator wants eigenphases (ε·T).
+  if (hints?.tolerances?.propagator !== undefined) options.propagator = { tolerance: Math.PI * hints.tolerances.propagator };
+  if (request.cut !== undefined) options.cut = request.cut;
+  return options;
+}
+
+export const realEngines: EngineSet = {
+  compile: (model, overrides) => compileModel(model, overrides),
+  sheet: (compiled, request) => analyseSheet(compiled.drive, sheetOptions(request)),
+  chain: (compiled, request) => analyseChainView(compiled, request),
+};

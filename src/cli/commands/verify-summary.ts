@@ -1,0 +1,301 @@
+/**
+ * Terminal output and options of verification runs, for the `check` command
+ * (which calls runVerifiedCheck) and `merge`:
+ *   strobe check [paths…] [--workers N] [--no-cache] [--shard i/n] [--time-limit S]
+ *                [--strict] [--json] [--junit FILE] [--out DIR]
+ *   strobe merge <summary.json…> [--out FILE]
+ * Exit status: 0 unless a model is disputed, invalid or failed (1); --strict
+ * also fails on unsettled models. Usage errors exit with 2.
+ */
+import { readFileSync, writeFileSync, mkdirSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import type { CatalogueReport, ProgressEvent } from '../../catalogue/verify/catalogue.ts';
+import { verifyCatalogue } from '../../catalogue/verify/catalogue.ts';
+import type { CatalogueSummary, ModelRecord, ModelStatus } from '../../catalogue/records/model-record.ts';
+import { canonicalJson } from '../../catalogue/records/canonical-json.ts';
+import { writeResults } from '../../catalogue/records/write.ts';
+import { mergeSummaries, MergeError } from '../../catalogue/records/summary.ts';
+import { reportProblems } from '../../catalogue/records/report-validation.ts';
+import { exitCodeFor } from '../../catalogue/verify/status.ts';
+import { junitXml, type JunitSuite } from '../../catalogue/junit.ts';
+import { parseShard, ShardSpecError, type ShardSpec } from '../../catalogue/shard.ts';
+
+/** Where commands write: process.stdout / process.stderr fit this shape. */
+export interface CliIO {
+  stdout: { write(text: string): unknown; isTTY?: boolean };
+  stderr: { write(text: string): unknown };
+}
+
+export class UsageError extends Error {}
+
+export interface CheckOptions {
+  paths: string[];
+  workers?: number;
+  cache: boolean;
+  shard?: ShardSpec;
+  timeLimitMs?: number;
+  strict: boolean;
+  json: boolean;
+  junit?: string;
+  out: string;
+}
+
+export const describeCheckOptions = `Options of strobe check (verification):
+  --workers N      worker threads (default: number of cores; 0 = run in this process)
+  --no-cache       recompute every model (default: reuse .strobe-cache/ for unchanged models)
+  --shard i/n      verify only shard i of n (split by a hash of the model id) for parallel CI jobs
+  --time-limit S   give up on a model after S seconds and report it as failed
+  --strict         also fail when a model is unsettled
+  --json           print the catalogue summary as JSON instead of the table
+  --junit FILE     also write a JUnit XML report (one test case per claim)
+  --out DIR        where results records go (default results)
+Exit status: 0 when no model is disputed, invalid or failed; 1 otherwise; 2 on a usage error.`;
+
+function takeValue(argv: string[], i: number, flag: string): string {
+  const v = argv[i + 1];
+  if (v === undefined || v.startsWith('--')) throw new UsageError(`${flag} needs a value`);
+  return v;
+}
+
+export function parseCheckOptions(argv: string[]): CheckOptions {
+  const o: CheckOptions = { paths: [], cache: true, strict: false, json: false, out: 'results' };
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    const [flag, inline] = a.startsWith('--') && a.includes('=') ? [a.slice(0, a.indexOf('=')), a.slice(a.indexOf('=') + 1)] : [a, undefined];
+    const value = () => {
+      if (inline !== undefined) return inline;
+      const v = takeValue(argv, i, flag);
+      i++;
+      return v;
+    };
+    switch (flag) {
+      case '--workers': {
+        const v = value();
+        const n = Number(v);
+        if (!Number.isInteger(n) || n < 0) throw new UsageError(`--workers expects a whole number ≥ 0, got "${v}"`);
+        o.workers = n;
+        break;
+      }
+      case '--no-cache':
+        o.cache = false;
+        break;
+      case '--shard':
+        try {
+          o.shard = parseShard(value());
+        } catch (e) {
+          if (e instanceof ShardSpecError) throw new UsageError(e.message);
+          throw e;
+        }
+        break;
+      case '--time-limit': {
+        const v = value();
+        const s = Number(v);
+        if (!Number.isFinite(s) || s <= 0) throw new UsageError(`--time-limit expects seconds > 0, got "${v}"`);
+        o.timeLimitMs = Math.round(s * 1000);
+        break;
+      }
+      case '--strict':
+        o.strict = true;
+        break;
+      case '--json':
+        o.json = true;
+        break;
+      case '--junit':
+        o.junit = value();
+        break;
+      case '--out':
+        o.out = value();
+        break;
+      default:
+        if (a.startsWith('--')) throw new UsageError(`unknown option ${a}; see "strobe help check"`);
+        o.paths.push(a);
+    }
+  }
+  return o;
+}
+
+const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
+
+/** Progress reporter: one rewritten line on a terminal, plain lines (one per finished model) otherwise. */
+export function progressReporter(io: CliIO): { onProgress: (e: ProgressEvent) => void; finish: () => void } {
+  const tty = io.stdout.isTTY === true;
+  let done = 0;
+  let width = 0;
+  return {
+    onProgress(e) {
+      const finished = e.step === 'done' || e.step === 'cached' || e.step === 'timed-out' || e.step === 'crashed' || e.step === 'threw';
+      if (finished) done++;
+      if (tty) {
+        const line = `[${done}/${e.total}] ${e.id}: ${e.step} ${seconds(e.elapsedMs)}`;
+        io.stdout.write(`\r${line.padEnd(width)}`);
+        width = line.length;
+      } else if (finished) {
+        io.stdout.write(`[${done}/${e.total}] ${e.id}: ${e.step === 'done' ? 'verified in' : e.step} ${e.step === 'cached' ? '(unchanged)' : seconds(e.elapsedMs)}\n`);
+      }
+    },
+    finish() {
+      if (tty && width > 0) io.stdout.write(`\r${' '.repeat(width)}\r`);
+    },
+  };
+}
+
+const STATUS_ORDER: ModelStatus[] = ['disputed', 'invalid', 'failed', 'unsettled', 'portrait-only', 'verified'];
+
+/** The summary table: one line per model, then totals. */
+export function summaryTable(report: Pick<CatalogueReport, 'records' | 'timings'>): string {
+  const rows = report.records.map((r) => [
+    r.id,
+    r.status,
+    `${r.counts.confirmed}/${r.counts.contradicted}/${r.counts.unsettled}`,
+    r.anomalous.classification,
+    report.timings[r.id]?.cached ? 'cached' : seconds(report.timings[r.id]?.totalMs ?? 0),
+  ]);
+  const header = ['model', 'status', 'claims ✓/✗/?', 'anomalous', 'time'];
+  const widths = header.map((h, c) => Math.max(h.length, ...rows.map((row) => row[c].length)));
+  const fmt = (row: string[]) => row.map((cell, c) => cell.padEnd(widths[c])).join('  ').trimEnd();
+  const lines = [fmt(header), widths.map((w) => '─'.repeat(w)).join('  '), ...rows.map(fmt)];
+  const counts = STATUS_ORDER.map((s) => [s, report.records.filter((r) => r.status === s).length] as const).filter(([, n]) => n > 0);
+  lines.push('', `${report.records.length} model(s): ${counts.map(([s, n]) => `${n} ${s}`).join(', ') || 'none'}`);
+  return lines.join('\n') + '\n';
+}
+
+/** What went wrong, model by model: contradictions with hints, unsettled reasons, diagnostics. */
+export function problemDetails(records: ModelRecord[]): string {
+  const out: string[] = [];
+  for (const r of records) {
+    if (r.status === 'invalid') {
+      out.push(`${r.id}: invalid`);
+      for (const d of r.diagnostics) out.push(`  ${d.file}:${d.line}:${d.column}  ${d.pointer || '(document)'}  ${d.message}${d.hint ? `  (${d.hint})` : ''}`);
+    } else if (r.status === 'failed') {
+      out.push(`${r.id}: failed: ${r.incident?.message ?? r.statusReason}`);
+    } else {
+      const bad = r.claims.filter((v) => v.outcome !== 'confirmed');
+      if (bad.length === 0) continue;
+      out.push(`${r.id}: ${r.status}`);
+      for (const v of bad) {
+        out.push(`  ${r.file} ${v.pointer}  ${v.outcome}: ${v.message}`);
+        if (v.hint) out.push(`    hint: ${v.hint}`);
+      }
+    }
+  }
+  return out.length > 0 ? out.join('\n') + '\n' : '';
+}
+
+export function junitSuites(report: Pick<CatalogueReport, 'records' | 'timings'>, strict: boolean): JunitSuite[] {
+  return report.records.map((r) => {
+    const time = (report.timings[r.id]?.totalMs ?? 0) / 1000;
+    if (r.status === 'invalid' || r.status === 'failed') {
+      const message = r.status === 'invalid' ? `invalid: ${r.statusReason}` : `failed: ${r.statusReason}`;
+      const detail = r.diagnostics.map((d) => `${d.file}:${d.line}:${d.column} ${d.pointer} ${d.message}${d.hint ? ` (${d.hint})` : ''}`).join('\n');
+      return { name: r.id, timeSeconds: time, cases: [{ name: 'load and compute', classname: r.id, timeSeconds: time, outcome: 'error' as const, message, detail }] };
+    }
+    const share = r.claims.length > 0 ? time / r.claims.length : 0;
+    return {
+      name: r.id,
+      timeSeconds: time,
+      cases: r.claims.map((v) => {
+        const detail = [v.hint ? `hint: ${v.hint}` : '', ...v.certificate.notes].filter(Boolean).join('\n');
+        if (v.outcome === 'confirmed') return { name: v.claim, classname: r.id, timeSeconds: share, outcome: 'pass' as const };
+        const outcome = v.outcome === 'contradicted' || strict ? ('failure' as const) : ('skipped' as const);
+        return { name: v.claim, classname: r.id, timeSeconds: share, outcome, message: v.message, detail };
+      }),
+    };
+  });
+}
+
+function writeFileEnsuringDir(file: string, text: string): void {
+  mkdirSync(dirname(file), { recursive: true });
+  writeFileSync(file, text);
+}
+
+/** strobe check with verification: verify, write records, print, return the exit status. */
+export async function runVerifiedCheck(argv: string[], io: CliIO): Promise<number> {
+  let options: CheckOptions;
+  try {
+    options = parseCheckOptions(argv);
+  } catch (e) {
+    if (e instanceof UsageError) {
+      io.stderr.write(`strobe check: ${e.message}\n`);
+      return 2;
+    }
+    throw e;
+  }
+  const progress = options.json ? undefined : progressReporter(io);
+  const report = await verifyCatalogue(options.paths.length > 0 ? options.paths : ['models'], {
+    cache: options.cache,
+    ...(options.workers !== undefined ? { workers: options.workers } : {}),
+    ...(options.shard ? { shard: options.shard } : {}),
+    ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}),
+    ...(progress ? { onProgress: progress.onProgress } : {}),
+  });
+  progress?.finish();
+  writeResults(options.out, report.records, report.summary, report.timings, { prune: !options.shard && options.paths.length === 0 });
+  for (const problem of report.cacheProblems) io.stderr.write(`warning: corrupt cache entry recomputed: ${problem}\n`);
+  if (options.junit) writeFileEnsuringDir(options.junit, junitXml('strobe check', junitSuites(report, options.strict)));
+  if (options.json) io.stdout.write(canonicalJson(report.summary));
+  else {
+    io.stdout.write(summaryTable(report));
+    const details = problemDetails(report.records);
+    if (details) io.stdout.write(`\n${details}`);
+    io.stdout.write(`\nresults written to ${options.out}/\n`);
+  }
+  return exitCodeFor(report.records.map((r) => r.status), options.strict);
+}
+
+export const describeMerge = `strobe merge <summary.json…> [--out FILE]
+  Joins the catalogue summaries written by sharded runs (results/catalogue.shard-i-of-n.json)
+  into one summary (default results/catalogue.json). Refuses summaries from different engine
+  versions and models that appear in two shards. Exit status 1 when a merged model is
+  disputed, invalid or failed (--strict: also unsettled).`;
+
+export async function runMerge(argv: string[], io: CliIO): Promise<number> {
+  const files: string[] = [];
+  let out = join('results', 'catalogue.json');
+  let strict = false;
+  for (let i = 0; i < argv.length; i++) {
+    if (argv[i] === '--out') {
+      const v = argv[++i];
+      if (!v) {
+        io.stderr.write('strobe merge: --out needs a file name\n');
+        return 2;
+      }
+      out = v;
+    } else if (argv[i] === '--strict') strict = true;
+    else if (argv[i].startsWith('--')) {
+      io.stderr.write(`strobe merge: unknown option ${argv[i]}; see "strobe help merge"\n`);
+      return 2;
+    } else files.push(argv[i]);
+  }
+  if (files.length === 0) {
+    io.stderr.write(`strobe merge: give the shard summaries to merge\n${describeMerge}\n`);
+    return 2;
+  }
+  const parts: { source: string; summary: CatalogueSummary }[] = [];
+  for (const file of files) {
+    let summary: unknown;
+    try {
+      summary = JSON.parse(readFileSync(file, 'utf8'));
+    } catch (e) {
+      io.stderr.write(`${file}: cannot read a catalogue summary: ${(e as Error).message}\n`);
+      return 1;
+    }
+    const problems = reportProblems(summary);
+    if (problems.length > 0 || (summary as { models?: unknown }).models === undefined) {
+      io.stderr.write(`${file}: not a catalogue summary (${problems[0] ?? 'no models list'})\n`);
+      return 1;
+    }
+    parts.push({ source: file, summary: summary as CatalogueSummary });
+  }
+  try {
+    const merged = mergeSummaries(parts);
+    writeFileEnsuringDir(out, canonicalJson(merged));
+    io.stdout.write(`${merged.models.length} model(s) from ${files.length} shard(s) written to ${out}\n`);
+    return exitCodeFor(merged.models.map((m) => m.status), strict);
+  } catch (e) {
+    if (e instanceof MergeError) {
+      io.stderr.write(`strobe merge: ${e.message}\n`);
+      return 1;
+    }
+    throw e;
+  }
+}

@@ -1,0 +1,172 @@
+/**
+ * The portrait of a driven chain: gaps at 0 and π, declared symmetries with
+ * residuals, chiral invariants (ν₀, ν_π) in symmetric time frames, class D
+ * Z₂ parities, the det-winding check, open-chain end modes, and the bulk–end
+ * relations between them. Every number carries the grid and tolerance it
+ * rests on (src/numerics/portrait.ts documents each field).
+ */
+import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
+import type { LatticeDrive } from '../drive.ts';
+import type { PropagatorOptions } from '../propagator.ts';
+import type { ChainChiralReport, ChainEndModes, ChainMajoranaReport, ChainPortrait, ChainSymmetryReport, ConsistencyCheck } from '../portrait.ts';
+import { bulkGaps } from './bulk-gaps.ts';
+import { chiralInvariants } from './chiral-winding.ts';
+import { majoranaInvariants } from './majorana-z2.ts';
+import { determinantWinding } from './quasienergy-winding.ts';
+import { defaultChainLength, openChainSpectrum } from './open-chain.ts';
+import { chiralFromTimeReversalAndParticleHole, chiralResidual, particleHoleResidual, timeReversalResidual } from './symmetry-residuals.ts';
+import type { SymmetryResidual } from './symmetry-residuals.ts';
+
+export interface ChainSymmetries {
+  chiral?: ComplexMatrix;
+  particleHole?: { unitary: ComplexMatrix };
+  timeReversal?: { unitary: ComplexMatrix };
+}
+
+export interface ChainAnalysisOptions {
+  /** Open chain length in cells (default from the bulk decay length, see open-chain.ts). */
+  cells?: number;
+  /** Cap on the default length (default 160). */
+  maxCells?: number;
+  /** Symmetry residual tolerance (default 1e-10). */
+  symmetryTolerance?: number;
+  /** Uniform k grid of the gap scan (default 128). */
+  gapGrid?: number;
+  propagator?: PropagatorOptions;
+}
+
+export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, options: ChainAnalysisOptions = {}): ChainPortrait {
+  if (drive.dimension !== 1) throw new RangeError(`analyseChain: expected a chain (dimension 1), got dimension ${drive.dimension}`);
+  const timings: Record<string, number> = {};
+  const timed = <T>(name: string, f: () => T): T => {
+    const t = performance.now();
+    const r = f();
+    timings[name] = performance.now() - t;
+    return r;
+  };
+  const tol = options.symmetryTolerance ?? 1e-10;
+  const propagator = options.propagator;
+  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator }));
+
+  const residuals: SymmetryResidual[] = timed('symmetries', () => {
+    const out: SymmetryResidual[] = [];
+    if (symmetries.chiral) out.push(chiralResidual(drive, symmetries.chiral, tol, propagator));
+    if (symmetries.particleHole) out.push(particleHoleResidual(drive, symmetries.particleHole.unitary, tol, propagator));
+    if (symmetries.timeReversal) out.push(timeReversalResidual(drive, symmetries.timeReversal.unitary, tol, propagator));
+    return out;
+  });
+
+  let gamma: ComplexMatrix | undefined = symmetries.chiral;
+  let source: ChainChiralReport['source'] = 'declared';
+  if (!gamma && symmetries.particleHole && symmetries.timeReversal) {
+    gamma = chiralFromTimeReversalAndParticleHole(symmetries.timeReversal.unitary, symmetries.particleHole.unitary);
+    source = 'time-reversal × particle-hole';
+  }
+  const chiral = gamma ? timed('chiral', () => chiralReport(drive, gamma!, source, tol, propagator)) : undefined;
+  const majorana = symmetries.particleHole ? timed('majorana', () => majoranaReport(drive, symmetries.particleHole!.unitary, propagator)) : undefined;
+  const det = timed('determinant-winding', () => determinantWinding(drive, { propagator }));
+
+  const length = defaultChainLength(bulk, 10, options.maxCells ?? 160);
+  const cells = options.cells ?? length.cells;
+  const open = timed('open-chain', () => openChainSpectrum(drive, cells, { bulk, propagator }));
+  const modes: ChainEndModes[] = open.modes.map((m) => ({
+    label: m.label,
+    low: m.low,
+    high: m.high,
+    lowWeight: m.lowWeight,
+    highWeight: m.highWeight,
+    lowDecayLength: m.lowFit ? m.lowFit.length : null,
+    highDecayLength: m.highFit ? m.highFit.length : null,
+    fitResidual: Math.max(m.lowFit?.rmsResidual ?? 0, m.highFit?.rmsResidual ?? 0),
+    quasienergies: m.quasienergies,
+    window: m.window,
+    settled: m.settled,
+    ...(m.reason !== undefined ? { reason: m.reason } : {}),
+  }));
+
+  const consistency: ConsistencyCheck[] = [];
+  consistency.push({
+    name: 'det-winding vanishes',
+    holds: det.winding.converged && det.winding.nearest === 0,
+    detail: `winding of det U(k, T) = ${det.winding.raw.toFixed(6)} on ${det.points} momenta (0 for any Hamiltonian drive)`,
+  });
+  for (const m of modes) {
+    const name = m.label === 0 ? '0' : 'π';
+    const inv = chiral?.status === 'computed' ? (m.label === 0 ? chiral.zero : chiral.pi) : undefined;
+    if (inv && inv.converged && m.settled) {
+      const expected = Math.abs(inv.nearest);
+      consistency.push({
+        name: `bulk–end at ${name} (chiral)`,
+        holds: m.low === expected && m.high === expected,
+        detail: `|ν_${name}| = ${expected}; end modes low ${m.low}, high ${m.high} on ${cells} cells`,
+      });
+    }
+    const parity = majorana?.status === 'computed' ? (m.label === 0 ? majorana.zero : majorana.pi) : null;
+    if (parity !== null && parity !== undefined && m.settled) {
+      const odd = parity === -1;
+      consistency.push({
+        name: `bulk–end at ${name} (Z₂)`,
+        holds: (m.low ?? 0) % 2 === (odd ? 1 : 0) && (m.high ?? 0) % 2 === (odd ? 1 : 0),
+        detail: `M_${name} = ${parity}; end modes low ${m.low}, high ${m.high} on ${cells} cells`,
+      });
+    }
+  }
+
+  const symmetryReports: ChainSymmetryReport[] = residuals.map((r) => ({
+    symmetry: r.symmetry,
+    hamiltonianResidual: r.hamiltonian,
+    floquetResidual: r.floquet,
+    ...(r.frameTime !== undefined ? { frameTime: r.frameTime } : {}),
+    tolerance: r.tolerance,
+    holds: r.holds,
+  }));
+
+  return {
+    kind: 'chain',
+    gaps: bulk.gaps.map((g) => ({ ...g })),
+    gapGrid: bulk.grid,
+    symmetries: symmetryReports,
+    ...(chiral ? { chiral } : {}),
+    ...(majorana ? { majorana } : {}),
+    determinantWinding: det.winding,
+    openChain: { cells, edgeCells: open.edgeCells, lengthSufficient: options.cells !== undefined || length.sufficient, modes, eigenResidual: open.eigenResidual },
+    consistency,
+    propagatorAccuracy: Math.max(bulk.propagatorAccuracy, open.propagatorAccuracy),
+    timings,
+  };
+}
+
+function chiralReport(drive: LatticeDrive, gamma: ComplexMatrix, source: ChainChiralReport['source'], tol: number, propagator?: PropagatorOptions): ChainChiralReport {
+  const r = chiralInvariants(drive, gamma, { frames: { tolerance: tol }, propagator });
+  return {
+    status: r.status,
+    source,
+    frames: r.frames.map((f) => ({
+      frameTime: f.frameTime,
+      winding: f.result.winding,
+      points: f.result.points,
+      maxStepPhase: f.result.maxStepPhase,
+      modulusRatio: f.result.maxModulus > 0 ? f.result.minModulus / f.result.maxModulus : 0,
+      floquetResidual: f.floquetResidual,
+    })),
+    frameResidual: r.search?.residual ?? Infinity,
+    frameTolerance: r.search?.tolerance ?? tol,
+    ...(r.zero ? { zero: r.zero } : {}),
+    ...(r.pi ? { pi: r.pi } : {}),
+    ...(r.reason !== undefined ? { reason: r.reason } : {}),
+  };
+}
+
+function majoranaReport(drive: LatticeDrive, uc: ComplexMatrix, propagator?: PropagatorOptions): ChainMajoranaReport {
+  const r = majoranaInvariants(drive, uc, { propagator });
+  return {
+    status: r.status,
+    zero: r.zero?.sign ?? null,
+    pi: r.pi?.sign ?? null,
+    zeroMargin: r.zero?.margin ?? 0,
+    piMargin: r.pi?.margin ?? 0,
+    tolerance: r.zero?.tolerance ?? 0,
+    momenta: r.points.map(({ momentum, spinTrace, pfaffian, realityDefect, liftConsistency }) => ({ momentum, spinTrace, pfaffian, realityDefect, liftConsistency })),
+    ...(r.reason !== undefined ? { reason: r.reason } : {}),
+  };
+}

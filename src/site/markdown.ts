@@ -1,0 +1,49 @@
+/**
+ * Renders the untrusted Markdown of a model description to safe HTML.
+ *
+ * Pipeline: Markdown → mdast (remark, with remark-math for $…$ and $$…$$)
+ * → hast (remark-rehype, raw HTML in the source is dropped, never passed through)
+ * → sanitised with rehype-sanitize (GitHub-style allow list, plus the two math
+ * classes) → math typeset by KaTeX on the server (rehype-katex) → HTML.
+ * Sanitising happens before KaTeX, so only KaTeX's own output is trusted.
+ */
+import { remark } from 'remark';
+import remarkMath from 'remark-math';
+import remarkRehype from 'remark-rehype';
+import rehypeSanitize, { defaultSchema } from 'rehype-sanitize';
+import rehypeKatex from 'rehype-katex';
+import rehypeStringify from 'rehype-stringify';
+
+const sanitizeSchema = {
+  ...defaultSchema,
+  attributes: {
+    ...defaultSchema.attributes,
+    code: [['className', /^language-./, 'math-inline', 'math-display']],
+  },
+};
+
+const processor = remark()
+  .use(remarkMath)
+  .use(remarkRehype)
+  .use(rehypeSanitize, sanitizeSchema)
+  .use(rehypeKatex, { throwOnError: false, strict: 'ignore' })
+  .use(rehypeStringify);
+
+/** Markdown (untrusted) → sanitised HTML with server-rendered math. Never throws for bad input. */
+export function renderMarkdown(markdown: string): string {
+  try {
+    return String(processor.processSync(markdown));
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    return `<p class="render-error">This description could not be rendered: ${escapeHtml(message)}</p>`;
+  }
+}
+
+export function escapeHtml(text: string): string {
+  return text
+    .replaceAll('&', '&amp;')
+    .replaceAll('<', '&lt;')
+    .replaceAll('>', '&gt;')
+    .replaceAll('"', '&quot;')
+    .replaceAll("'", '&#39;');
+}

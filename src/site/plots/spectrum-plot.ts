@@ -1,0 +1,58 @@
+/**
+ * Spectrum figures: quasienergy against momentum for ribbons (each state shaded by
+ * its weight on the low and high edge), and quasienergy levels of an open chain
+ * against state index. Gap labels are drawn as dashed lines.
+ */
+import { drawAxes, formatCoordinate as f, makeFrame, momentumAxis, quasienergyAxis, svgDocument, type Axis } from './svg-frame.ts';
+
+export interface SpectrumInput {
+  title: string;
+  /** Reduced momenta (ribbon); empty for an open chain. */
+  momenta: number[];
+  /** quasienergies[i][n]: state n at momentum i (units π/T); one row for an open chain. */
+  quasienergies: number[][];
+  lowEdgeWeight: number[][];
+  highEdgeWeight: number[][];
+  /** Quasienergies of the gaps to mark (units π/T). */
+  gapLabels: number[];
+  /** Weight above which a state is drawn as an edge state. */
+  edgeThreshold?: number;
+}
+
+/** Classification used for colour: 'low', 'high' or 'bulk'. */
+export function edgeClass(low: number, high: number, threshold: number): 'low' | 'high' | 'bulk' {
+  if (low >= threshold && low >= high) return 'low';
+  if (high >= threshold) return 'high';
+  return 'bulk';
+}
+
+export function spectrumPlot(input: SpectrumInput): string {
+  const threshold = input.edgeThreshold ?? 0.5;
+  const isChain = input.momenta.length === 0;
+  const stateCount = input.quasienergies[0]?.length ?? 0;
+  const xAxis: Axis = isChain
+    ? { label: 'state index (sorted by quasienergy)', min: 0, max: Math.max(1, stateCount - 1), ticks: [0, Math.max(1, stateCount - 1)].map((v) => ({ value: v, label: String(v) })) }
+    : momentumAxis('momentum along the edge k∥ (reduced)');
+  const yAxis = quasienergyAxis();
+  const frame = makeFrame(640, 380, xAxis, yAxis);
+  const layers: Record<'bulk' | 'low' | 'high', string[]> = { bulk: [], low: [], high: [] };
+  for (let i = 0; i < input.quasienergies.length; i++) {
+    const row = input.quasienergies[i];
+    for (let n = 0; n < row.length; n++) {
+      const x = isChain ? n : input.momenta[i];
+      const kind = edgeClass(input.lowEdgeWeight[i]?.[n] ?? 0, input.highEdgeWeight[i]?.[n] ?? 0, threshold);
+      const radius = kind === 'bulk' ? 1.2 : 2;
+      layers[kind].push(`<circle cx="${f(frame.x(x))}" cy="${f(frame.y(row[n]))}" r="${radius}"/>`);
+    }
+  }
+  const gapLines = input.gapLabels
+    .map((g) => `<line x1="${frame.left}" x2="${frame.width - frame.right}" y1="${f(frame.y(g))}" y2="${f(frame.y(g))}" class="plot-gap-line"/>`)
+    .join('');
+  const body =
+    drawAxes(frame, xAxis, yAxis) +
+    gapLines +
+    `<g class="state-bulk">${layers.bulk.join('')}</g>` +
+    `<g class="state-low-edge">${layers.low.join('')}</g>` +
+    `<g class="state-high-edge">${layers.high.join('')}</g>`;
+  return svgDocument(frame, input.title, body);
+}

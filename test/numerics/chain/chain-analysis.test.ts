@@ -1,0 +1,31 @@
+import { describe, expect, it } from 'vitest';
+import { fromArrays, identity } from '../../../src/numerics/linalg/complex-matrix.ts';
+import { nambuParticleHole } from '../../../src/numerics/bdg.ts';
+import { analyseChain } from '../../../src/numerics/chain/chain-analysis.ts';
+import { kickedKitaevChain, twoStepChain } from '../../support/drives/chains.ts';
+
+describe('analyseChain', () => {
+  it('two-step chain in the (1, 1) phase: invariants, end modes, frames and consistency in one portrait', () => {
+    const p = analyseChain(twoStepChain(1.5, 2.0), { chiral: fromArrays([[1, 0], [0, -1]]) });
+    expect(p.kind).toBe('chain');
+    expect(p.gaps.map((g) => g.open)).toEqual([true, true]);
+    // Analytic clearances: the 0 gap edge is at |θ₁ − θ₂| = 0.5 rad, the π gap edge at π − (θ₁ + θ₂) → |π − 3.5| rad; in units π/T.
+    expect(Math.abs(p.gaps[0].clearance - 0.5 / Math.PI)).toBeLessThanOrEqual(1e-9);
+    expect(Math.abs(p.gaps[1].clearance - (3.5 - Math.PI) / Math.PI)).toBeLessThanOrEqual(1e-9);
+    expect([Math.abs(p.chiral!.zero!.nearest), Math.abs(p.chiral!.pi!.nearest)]).toEqual([1, 1]);
+    expect(p.openChain.modes.map((m) => [m.low, m.high])).toEqual([[1, 1], [1, 1]]);
+    expect(p.consistency.length).toBeGreaterThanOrEqual(3);
+    for (const c of p.consistency) expect(c.holds, c.detail).toBe(true);
+    expect(p.determinantWinding.nearest + 0).toBe(0);
+  });
+
+  it('kicked Kitaev chain with particle–hole and time reversal: Z₂ and the BDI winding derived from both agree with the ends', () => {
+    const p = analyseChain(kickedKitaevChain(1, 1, 3, 2, 0.5), { particleHole: { unitary: nambuParticleHole(1) }, timeReversal: { unitary: identity(2) } });
+    expect(p.chiral!.source).toBe('time-reversal × particle-hole');
+    expect([p.majorana!.zero, p.majorana!.pi]).toEqual([1, -1]);
+    expect(Math.abs(p.chiral!.pi!.nearest)).toBe(1);
+    expect(p.openChain.modes[1].low).toBe(1);
+    for (const c of p.consistency) expect(c.holds, c.detail).toBe(true);
+    expect(p.symmetries.every((s) => s.holds)).toBe(true);
+  });
+});

@@ -1,0 +1,68 @@
+import { describe, expect, it } from 'vitest';
+import { cellWeights, ribbonSpectrum } from '../../src/numerics/ribbon.ts';
+import { FloquetSampler } from '../../src/numerics/quasienergy-bands.ts';
+import { truncateDrive } from '../../src/numerics/supercell.ts';
+import { qwzDrive } from '../support/drives/qwz.ts';
+
+function expectWithin(label: string, actual: number, expected: number, tolerance: number): void {
+  const delta = Math.abs(actual - expected);
+  if (!(delta <= tolerance)) expect.fail(`${label}: actual ${actual}, expected ${expected}, |Δ| ${delta.toExponential(2)} > tolerance ${tolerance.toExponential(2)}`);
+}
+
+/*
+ * Analytic QWZ edge state (derived here). Ribbon finite along x, cells j ≥ 0:
+ *   H = Σ_j h₀|j⟩⟨j| + B|j+1⟩⟨j| + B†|j⟩⟨j+1|,  h₀ = sin k_y σy + (m + cos k_y)σz,  B = (i/2)σx + (1/2)σz.
+ * Take χ with σy χ = χ; then σz χ = −iσxχ, so Bχ = 0 and B†χ = −iσxχ. The ansatz ψ_j = λ^j χ gives
+ *   (Hψ)_j = λ^j [sin k_y χ − i(m + cos k_y + λ) σxχ]  in the bulk, and the boundary term Bψ_{−1} = 0.
+ * With λ = −(m + cos k_y): Hψ = sin k_y ψ. It is normalisable for |m + cos k_y| < 1: the low-edge state
+ * has energy +sin k_y and cell weights ∝ λ^{2j}, i.e. decay length ξ = −1/ln|λ| cells.
+ */
+describe('ribbonSpectrum', () => {
+  const m = 1;
+  const width = 20;
+  const ribbon = ribbonSpectrum(qwzDrive(m), { finiteDirection: 0, width, momenta: 40 });
+  const T = qwzDrive(m).period;
+
+  it('samples k∥ = (j + 1/2)/n and reports edge weights that never exceed 1', () => {
+    expect(ribbon.momenta.length).toBe(40);
+    expectWithin('first momentum', ribbon.momenta[0], 1 / 80, 1e-15);
+    expect(ribbon.edgeCells).toBe(5);
+    for (let j = 0; j < 40; j++) {
+      ribbon.lowEdgeWeight[j].forEach((w, c) => expect(w + ribbon.highEdgeWeight[j][c]).toBeLessThanOrEqual(1 + 1e-12));
+    }
+  });
+
+  it('contains the analytic low-edge state: ε = sin k_y (T/π units) with weights ∝ (m + cos k_y)^{2j}', () => {
+    let checked = 0;
+    ribbon.momenta.forEach((s, j) => {
+      const ky = 2 * Math.PI * s;
+      const lambda = -(m + Math.cos(ky));
+      if (Math.abs(lambda) > 0.6) return;
+      const sample = ribbon.samples[j];
+      const column = ribbon.lowEdgeWeight[j].indexOf(Math.max(...ribbon.lowEdgeWeight[j]));
+      expectWithin(`ε at k_y = ${ky.toFixed(3)}`, sample.quasienergies[column], (Math.sin(ky) * T) / Math.PI, 1e-9);
+      const w = cellWeights(sample, column, 2);
+      expectWithin(`w₁/w₀ at k_y = ${ky.toFixed(3)}`, w[1] / w[0], lambda * lambda, 1e-8);
+      checked++;
+    });
+    expect(checked).toBeGreaterThan(5);
+  });
+
+  it('at k_y = π (m = 1) has two exact zero modes, one in the first and one in the last cell', () => {
+    // λ = 0 at k_y = π: the state sits in cell 0 only (and its mirror partner in the last cell).
+    const sample = new FloquetSampler(truncateDrive(qwzDrive(m), 0, width)).at([0.5]);
+    const zero = Array.from(sample.quasienergies.keys()).filter((c) => Math.abs(sample.quasienergies[c]) < 1e-9);
+    expect(zero.length).toBe(2);
+    const total = zero.reduce((acc, c) => {
+      const w = cellWeights(sample, c, 2);
+      return acc + w[0] + w[width - 1];
+    }, 0);
+    expectWithin('weight of the zero modes in the end cells', total, 2, 1e-10);
+  });
+
+  it('rejects bad options with plain messages', () => {
+    expect(() => ribbonSpectrum(qwzDrive(1), { width: 4, edgeCells: 3 })).toThrow(/edge region of 3 cells does not fit twice into a ribbon of 4 cells/);
+    expect(() => ribbonSpectrum(qwzDrive(1), { momenta: 1 })).toThrow(/at least 2 momenta/);
+    expect(() => ribbonSpectrum(truncateDrive(qwzDrive(1), 0, 3))).toThrow(/needs a sheet/);
+  });
+});
