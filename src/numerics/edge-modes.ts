@@ -136,7 +136,7 @@ export function countEdgeModes(
             `(weights ${low.toFixed(2)} low, ${high.toFixed(2)} high in ${ribbon.edgeCells} cells)`,
         );
       }
-      crossings[edge].push({ momentum: momentum - Math.floor(momentum), direction: step > 0 ? -1 : 1, weight });
+      crossings[edge].push({ momentum: momentum - Math.floor(momentum), direction: step > 0 ? 1 : -1, weight });
       decay = Math.max(
         decay,
         fitDecayLength(cellWeights(here, a, ribbon.orbitalsPerCell), edge),

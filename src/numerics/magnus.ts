@@ -10,7 +10,7 @@
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
 import { identity, multiply, zeros } from './linalg/complex-matrix.ts';
-import { expMinusIHt } from './linalg/exponential.ts';
+import { exp2x2, expMinusIHt } from './linalg/exponential.ts';
 
 const SQRT3 = Math.sqrt(3);
 export const CF4_NODES: readonly [number, number] = [0.5 - SQRT3 / 6, 0.5 + SQRT3 / 6];
@@ -73,37 +73,28 @@ export function magnusCF4AtNodes(hamiltonian: NodeSampler, size: number, t0: num
 }
 
 /**
- * Allocation-free 2×2 path (two-band models on fine k grids): with
- * G = g₀ + g·σ, exp(−iGh) = e^{−ig₀h}(cos|g|h − i sin(|g|h) ĝ·σ), multiplied into U in place.
+ * 2×2 path (two-band models on fine k grids): each factor is the closed-form
+ * exponential of G = g₀ + g·σ (exp2x2) multiplied into U in place, with no
+ * allocation per slice.
  */
 function magnusCF4TwoLevel(hamiltonian: NodeSampler, t0: number, t1: number, slices: number): ComplexMatrix {
   const h = (t1 - t0) / slices;
   const [a1, a2] = CF4_WEIGHTS;
-  const h1 = zeros(2, 2), h2 = zeros(2, 2);
+  const h1 = zeros(2, 2), h2 = zeros(2, 2), m = zeros(2, 2);
   const u = identity(2);
-  const ur = u.re, ui = u.im;
+  const ur = u.re, ui = u.im, mr = m.re, mi = m.im;
   const apply = (wa: number, wb: number) => {
-    // G = wa H1 + wb H2 = g0 + g·σ
+    // G = wa·H1 + wb·H2 = [[p, conj b], [b, q]]
     const p = wa * h1.re[0] + wb * h2.re[0], q = wa * h1.re[3] + wb * h2.re[3];
-    const g0 = 0.5 * (p + q), gz = 0.5 * (p - q);
-    const gx = wa * 0.5 * (h1.re[2] + h1.re[1]) + wb * 0.5 * (h2.re[2] + h2.re[1]);
-    const gy = wa * 0.5 * (h1.im[2] - h1.im[1]) + wb * 0.5 * (h2.im[2] - h2.im[1]);
-    const r = Math.hypot(gx, gy, gz);
-    const phi = r * h;
-    const c = Math.cos(phi);
-    const s = Math.abs(phi) < 1e-4 ? h * (1 - (phi * phi) / 6) : Math.sin(phi) / r;
-    const er = Math.cos(g0 * h), ei = -Math.sin(g0 * h);
-    // M = e^{−ig₀h} [[c − i s gz, −s gy − i s gx], [s gy − i s gx, c + i s gz]]
-    const m00r = er * c + ei * s * gz, m00i = ei * c - er * s * gz;
-    const m01r = -er * s * gy + ei * s * gx, m01i = -ei * s * gy - er * s * gx;
-    const m10r = er * s * gy + ei * s * gx, m10i = ei * s * gy - er * s * gx;
-    const m11r = er * c - ei * s * gz, m11i = ei * c + er * s * gz;
+    const bRe = wa * 0.5 * (h1.re[2] + h1.re[1]) + wb * 0.5 * (h2.re[2] + h2.re[1]);
+    const bIm = wa * 0.5 * (h1.im[2] - h1.im[1]) + wb * 0.5 * (h2.im[2] - h2.im[1]);
+    exp2x2(p, q, bRe, bIm, h, m, 0, 1);
     for (let col = 0; col < 2; col++) {
       const xr = ur[col], xi = ui[col], yr = ur[2 + col], yi = ui[2 + col];
-      ur[col] = m00r * xr - m00i * xi + m01r * yr - m01i * yi;
-      ui[col] = m00r * xi + m00i * xr + m01r * yi + m01i * yr;
-      ur[2 + col] = m10r * xr - m10i * xi + m11r * yr - m11i * yi;
-      ui[2 + col] = m10r * xi + m10i * xr + m11r * yi + m11i * yr;
+      ur[col] = mr[0] * xr - mi[0] * xi + mr[1] * yr - mi[1] * yi;
+      ui[col] = mr[0] * xi + mi[0] * xr + mr[1] * yi + mi[1] * yr;
+      ur[2 + col] = mr[2] * xr - mi[2] * xi + mr[3] * yr - mi[3] * yi;
+      ui[2 + col] = mr[2] * xi + mi[2] * xr + mr[3] * yi + mi[3] * yr;
     }
   };
   for (let k = 0; k < slices; k++) {

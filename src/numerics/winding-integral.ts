@@ -30,12 +30,9 @@ import type { ComplexMatrix } from './linalg/complex-matrix.ts';
 import { multiply, multiplyAdjointLeft, multiplyAdjointRight, zeros } from './linalg/complex-matrix.ts';
 import { HermitianEigen } from './linalg/hermitian-eigen.ts';
 import { UnitaryEigen } from './linalg/unitary-eigen.ts';
-import type { LatticeDrive } from './drive.ts';
-import type { PreparedBloch } from './bloch.ts';
-import { prepareBloch } from './bloch.ts';
 import { quasienergyBelowCut } from './effective-hamiltonian.ts';
-import type { LoopPlan } from './winding-loop.ts';
-import { pieceGenerator } from './winding-loop.ts';
+import type { GeneratorSeries, LoopPlan } from './winding-loop.ts';
+import { generatorAt } from './winding-loop.ts';
 import { centralDifference, gaussLegendre } from './winding-grid.ts';
 import { densitySumTwo, framesTwo, propagateTwo } from './winding-kernel-two.ts';
 
@@ -146,10 +143,10 @@ export function centralDerivatives(
  * W for every cut (labels in units of π/T) on one grid. `orientation` is
  * sign det(a₁, a₂).
  */
-export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[], grid: WindingGrid, orientation: number): GridWinding {
+export function windingOnGrid(plan: LoopPlan, series: GeneratorSeries[], cuts: number[], grid: WindingGrid, orientation: number): GridWinding {
   const [ax1, ax2] = grid.axes;
   const n1 = ax1.length, n2 = ax2.length, count = n1 * n2;
-  const n = drive.states.length, nn = n * n;
+  const n = series[0].size, nn = n * n;
   const r = grid.stencilRadius;
   if (n1 < 2 * r + 1 || n2 < 2 * r + 1) throw new RangeError(`windingOnGrid: a ${n1}×${n2} grid is too small for central differences of order ${2 * r}`);
   const coef = centralDifference(r);
@@ -158,12 +155,9 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
   const g = cuts.length;
   const twoBand = n === 2 && grid.kernel !== 'general';
 
-  const blochs: PreparedBloch[] = new Array(count);
-  for (let i1 = 0; i1 < n1; i1++) for (let i2 = 0; i2 < n2; i2++) blochs[i1 * n2 + i2] = prepareBloch(drive, [ax1[i1], ax2[i2]]);
-
   // Scratch matrices, allocated once.
   const m = () => zeros(n, n);
-  const gen = m(), scratch = m(), work = m(), ex = m(), u = m(), u2 = m(), w = m(), vg = m(), v = m();
+  const gen = m(), work = m(), ex = m(), u = m(), u2 = m(), w = m(), vg = m(), v = m();
   const a1 = m(), a2 = m(), hv = m(), c = m(), comm = m(), tmp = m(), x = m(), qf = m(), q = m(), d1 = m(), d2 = m();
   const packed = () => [new Float64Array(count * nn), new Float64Array(count * nn)];
 
@@ -171,11 +165,11 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
   const [genRe, genIm] = packed();
   const [vecRe, vecIm] = packed();
   const valRe = new Float64Array(count * n);
-  const loadPiece = (piece: LoopPlan['pieces'][number]) => {
+  const loadPiece = (p: number) => {
     for (let k = 0; k < count; k++) {
-      pieceGenerator(blochs[k], piece, gen, scratch);
-      save(gen, genRe, genIm, k * nn);
+      generatorAt(series[p], ax1[Math.floor(k / n2)], ax2[k % n2], genRe, genIm, k * nn);
       if (twoBand) continue;
+      load(genRe, genIm, k * nn, gen);
       const eig = new HermitianEigen(gen);
       valRe.set(eig.values, k * n);
       save(eig.vectors, vecRe, vecIm, k * nn);
@@ -206,10 +200,10 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
 
   // Pass 1: U(s, T) per momentum, its eigenvectors Q_F, the branch θ of each cut and X = Q_F diag(θ/T′) Q_F†.
   resetStart();
-  for (const piece of plan.pieces) {
-    loadPiece(piece);
+  plan.pieces.forEach((piece, p) => {
+    loadPiece(p);
     advance(piece.duration);
-  }
+  });
   const floquetRe = startRe.slice(), floquetIm = startIm.slice();
   const [qfRe, qfIm] = packed();
   const theta = cuts.map(() => new Float64Array(count * n));
@@ -248,7 +242,7 @@ export function windingOnGrid(drive: LatticeDrive, plan: LoopPlan, cuts: number[
   let t0 = 0, timeNodes = 0;
   for (let p = 0; p < plan.pieces.length; p++) {
     const piece = plan.pieces[p];
-    loadPiece(piece);
+    loadPiece(p);
     const rule = gaussLegendre(grid.nodesPerPiece[p]);
     const half = piece.duration / 2;
     for (let i = 0; i < rule.nodes.length; i++) {

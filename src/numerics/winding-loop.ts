@@ -20,8 +20,9 @@
  *   the two have the same W.
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
-import type { ComplexMatrix } from './linalg/complex-matrix.ts';
-import { zeros } from './linalg/complex-matrix.ts';
+import { identity, multiply, zeros } from './linalg/complex-matrix.ts';
+import { expMinusIHt } from './linalg/exponential.ts';
+import { propagateTwo } from './winding-kernel-two.ts';
 import type { LatticeDrive } from './drive.ts';
 import { segmentStartTimes } from './drive.ts';
 import type { PreparedBloch } from './bloch.ts';
@@ -204,4 +205,31 @@ export function generatorAt(series: GeneratorSeries, s1: number, s2: number, out
       outIm[offset + e] += xr * s + xi * c;
     }
   }
+}
+
+/**
+ * U(s, T) as the product of the pieces' exponentials, from the series: the same
+ * operator the winding integral closes its loop on.
+ */
+export function loopFloquetOperator(series: GeneratorSeries[], plan: LoopPlan, s1: number, s2: number): ComplexMatrix {
+  const n = series[0]?.size ?? 0;
+  const nn = n * n;
+  const genRe = new Float64Array(nn), genIm = new Float64Array(nn);
+  let u = identity(n);
+  if (n === 2) {
+    const next = zeros(2, 2);
+    plan.pieces.forEach((piece, p) => {
+      generatorAt(series[p], s1, s2, genRe, genIm, 0);
+      propagateTwo(genRe, genIm, 0, piece.duration, u.re, u.im, 0, next.re, next.im, 0);
+      u.re.set(next.re);
+      u.im.set(next.im);
+    });
+    return u;
+  }
+  const gen = zeros(n, n);
+  plan.pieces.forEach((piece, p) => {
+    generatorAt(series[p], s1, s2, gen.re, gen.im, 0);
+    u = multiply(expMinusIHt(gen, piece.duration), u);
+  });
+  return u;
 }

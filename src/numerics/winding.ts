@@ -32,12 +32,13 @@ import type { WindingReport } from './portrait.ts';
 import type { RefinementStep } from './certificates.ts';
 import { integerEstimate } from './certificates.ts';
 import type { PropagatorOptions } from './propagator.ts';
-import { FloquetSampler } from './quasienergy-bands.ts';
+import { wrapQuasienergy } from './quasienergy-bands.ts';
+import { UnitaryEigen } from './linalg/unitary-eigen.ts';
 import { prepareBloch } from './bloch.ts';
 import { zeros } from './linalg/complex-matrix.ts';
 import { HermitianEigen } from './linalg/hermitian-eigen.ts';
 import type { LoopPlan } from './winding-loop.ts';
-import { magnusSliceCounts, pieceGenerator, planLoop } from './winding-loop.ts';
+import { generatorSeries, loopFloquetOperator, magnusSliceCounts, pieceGenerator, planLoop } from './winding-loop.ts';
 import type { AxisFocus } from './winding-grid.ts';
 import { gradedAxis } from './winding-grid.ts';
 import type { CutProbe } from './winding-probe.ts';
@@ -154,13 +155,13 @@ export function gapWindingNumbers(drive: LatticeDrive, gapLabels: number[], opti
   const sign = latticeOrientation(drive);
   if (gapLabels.length === 0) return [];
 
-  const sampler = new FloquetSampler(drive, options.propagator ? { propagator: options.propagator } : {});
-  const probes = gapLabels.map((g) =>
-    probeCut((s) => sampler.at(s).quasienergies, g, o.probeGrid, { sharpWidth: FOCUS_SPACINGS / o.initialGrid, floor: o.closingFloor / 10 }),
-  );
   const corners = [[0, 0], [0.5, 0], [0, 0.5], [0.5, 0.5], [0.25, 0.75]];
   const plan = planLoop(drive, prepareBloch(drive, [0, 0]), magnusSliceCounts(drive, corners, options.propagator));
+  const series = generatorSeries(drive, plan);
   const nodes0 = baseNodes(drive, plan, corners);
+  // Quasienergies (units π/T) of the loop's own U(s, T), the operator the integral closes on.
+  const spectrum = (s: number[]) => Array.from(new UnitaryEigen(loopFloquetOperator(series, plan, s[0], s[1])).phases, (phi) => wrapQuasienergy(-phi / Math.PI));
+  const probes = gapLabels.map((g) => probeCut(spectrum, g, o.probeGrid, { sharpWidth: FOCUS_SPACINGS / o.initialGrid, floor: o.closingFloor / 10 }));
 
   const closed = probes.map((p) => p.minimalDistance < o.closingFloor);
   const open = gapLabels.map((_, i) => i).filter((i) => !closed[i]);
@@ -179,7 +180,7 @@ export function gapWindingNumbers(drive: LatticeDrive, gapLabels: number[], opti
       nodesPerPiece: nodes0.map((m) => m + 2 * level),
       stencilRadius: o.stencilRadius,
     };
-    const result = windingOnGrid(drive, plan, active.map((i) => gapLabels[i]), grid, sign);
+    const result = windingOnGrid(plan, series, active.map((i) => gapLabels[i]), grid, sign);
     active.forEach((gap, j) => {
       const value = result.values[j];
       const h = history[gap];

@@ -44,7 +44,7 @@ export function prepareExponential(h: ComplexMatrix): (t: number) => ComplexMatr
 }
 
 /** Writes exp(−iHt) of the 2×2 Hermitian [[a, conj b], [b, d]] into rows/cols (i0, i1) of out. */
-function exp2x2(a: number, d: number, bRe: number, bIm: number, t: number, out: ComplexMatrix, i0: number, i1: number): ComplexMatrix {
+export function exp2x2(a: number, d: number, bRe: number, bIm: number, t: number, out: ComplexMatrix, i0: number, i1: number): ComplexMatrix {
   const h0 = 0.5 * (a + d), hz = 0.5 * (a - d), hx = bRe, hy = bIm;
   const r = Math.hypot(hx, hy, hz);
   const phi = r * t;

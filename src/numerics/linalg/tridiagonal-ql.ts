@@ -13,17 +13,6 @@
  */
 export const MAX_QL_ITERATIONS_PER_EIGENVALUE = 60;
 
-/** √(a² + b²) without overflow; much cheaper than Math.hypot in the inner loop. */
-function hypot2(a: number, b: number): number {
-  const x = Math.abs(a), y = Math.abs(b);
-  if (x > y) {
-    const r = y / x;
-    return x * Math.sqrt(1 + r * r);
-  }
-  if (y === 0) return 0;
-  const r = x / y;
-  return y * Math.sqrt(1 + r * r);
-}
 
 export function tridiagonalQl(d: Float64Array, e: Float64Array, zt: Float64Array | null): void {
   const n = d.length;
@@ -47,7 +36,7 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, zt: Float64Array
         // Implicit shift from the leading 2×2 block.
         let g = d[l];
         let p = (d[l + 1] - g) / (2 * e[l]);
-        let r = hypot2(p, 1);
+        let r = Math.hypot(p, 1);
         if (p < 0) r = -r;
         d[l] = e[l] / (p + r);
         d[l + 1] = e[l] * (p + r);
@@ -66,7 +55,7 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, zt: Float64Array
           s2 = s;
           g = c * e[i];
           h = c * p;
-          r = hypot2(p, e[i]);
+          r = Math.hypot(p, e[i]);
           e[i + 1] = s * r;
           s = e[i] / r;
           c = p / r;

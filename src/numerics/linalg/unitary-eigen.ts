@@ -171,19 +171,24 @@ function cayleyPass(u: ComplexMatrix, cut: number): { phases: Float64Array; vect
 /** Distance of the nearest eigenphase from the cut, and the centre and width of the largest gap. */
 function cutClearance(phases: Float64Array, cut: number): { distance: number; gapCentre: number; gapWidth: number } {
   const sorted = Float64Array.from(phases).sort();
-  const n = sorted.length;
   let distance = Infinity;
   for (const p of sorted) distance = Math.min(distance, Math.abs(foldPhase(p - cut)));
-  let gapWidth = -1, gapCentre = cut;
+  const { below, width } = largestGap(sorted);
+  return { distance, gapCentre: foldPhase(sorted[below] + 0.5 * width), gapWidth: width };
+}
+
+/** Largest gap between circularly consecutive entries of ascending phases: index of the phase below it, and its width. */
+function largestGap(sorted: ArrayLike<number>): { below: number; width: number } {
+  const n = sorted.length;
+  let below = 0, width = -1;
   for (let k = 0; k < n; k++) {
-    const lo = sorted[k];
     const hi = k + 1 < n ? sorted[k + 1] : sorted[0] + 2 * Math.PI;
-    if (hi - lo > gapWidth) {
-      gapWidth = hi - lo;
-      gapCentre = foldPhase(0.5 * (lo + hi));
+    if (hi - sorted[k] > width) {
+      width = hi - sorted[k];
+      below = k;
     }
   }
-  return { distance, gapCentre, gapWidth };
+  return { below, width };
 }
 
 /** φ_j = arg(v_j† (U v_j)). */
@@ -213,15 +218,7 @@ function refineClusters(v: ComplexMatrix, uv: ComplexMatrix): void {
   const phases = rayleighPhases(v, uv);
   const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => phases[a] - phases[b]);
   // Start the scan after the largest gap so no cluster wraps around the array end.
-  let start = 0, widest = -1;
-  for (let k = 0; k < n; k++) {
-    const lo = phases[order[k]];
-    const hi = k + 1 < n ? phases[order[k + 1]] : phases[order[0]] + 2 * Math.PI;
-    if (hi - lo > widest) {
-      widest = hi - lo;
-      start = (k + 1) % n;
-    }
-  }
+  const start = (largestGap(order.map((j) => phases[j])).below + 1) % n;
   let cluster: number[] = [order[start]];
   const flush = () => {
     if (cluster.length > 1) rediagonalise(v, uv, cluster, phases[cluster[0]]);

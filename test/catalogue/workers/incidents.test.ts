@@ -1,0 +1,58 @@
+import { describe, expect, it } from 'vitest';
+import { join } from 'node:path';
+import { verifyCatalogue, type ProgressEvent } from '../../../src/catalogue/verify/catalogue.ts';
+import { reportProblems } from '../../../src/catalogue/records/report-validation.ts';
+import { canonicalJson } from '../../../src/catalogue/records/canonical-json.ts';
+import { progressReporter, summaryTable } from '../../../src/cli/commands/verify-summary.ts';
+
+const files = ['two-step-chain-correct', 'two-step-chain-wrong-frame', 'qwz-sign-error'].map((id) => `test/fixtures/verification/${id}.json`);
+
+describe('models that hang or crash', () => {
+  it('are reported as failed with the reason, and the other models finish', async () => {
+    const events: ProgressEvent[] = [];
+    const report = await verifyCatalogue(files, {
+      workers: 2,
+      cache: false,
+      timeLimitMs: 4000,
+      taskModule: join(process.cwd(), 'test', 'catalogue', 'workers', 'misbehaving-task.ts'),
+      onProgress: (e) => events.push(e),
+    });
+    const byId = Object.fromEntries(report.records.map((r) => [r.id, r]));
+    expect(byId['two-step-chain-wrong-frame']).toMatchObject({ status: 'failed', incident: { kind: 'timed-out', message: 'timed out after 4 s' } });
+    expect(byId['qwz-sign-error'].status).toBe('failed');
+    expect(byId['qwz-sign-error'].incident).toMatchObject({ kind: 'crashed', message: 'worker crashed: exited with code 3' });
+    expect(byId['two-step-chain-correct'].status).toBe('verified');
+    expect(report.summary.counts.failed).toBe(2);
+    for (const r of report.records) expect(reportProblems(JSON.parse(canonicalJson(r))), r.id).toEqual([]);
+    expect(events.filter((e) => e.step === 'timed-out').map((e) => e.id)).toEqual(['two-step-chain-wrong-frame']);
+    // The table names every model with its status.
+    const table = summaryTable(report);
+    expect(table).toMatch(/two-step-chain-wrong-frame\s+failed/);
+    expect(table).toMatch(/3 model\(s\): 2 failed, 1 verified/);
+  });
+});
+
+describe('progress lines', () => {
+  const event = (step: string, id = 'm-1'): ProgressEvent => ({ id, index: 0, total: 2, step, elapsedMs: 1500 });
+  it('are plain lines per finished model when not on a terminal', () => {
+    const out: string[] = [];
+    const p = progressReporter({ stdout: { write: (t: string) => out.push(t) }, stderr: { write: () => {} } });
+    p.onProgress(event('started'));
+    p.onProgress(event('analysing'));
+    p.onProgress(event('done'));
+    p.onProgress(event('cached', 'm-2'));
+    p.finish();
+    expect(out).toEqual(['[1/2] m-1: verified in 1.5 s\n', '[2/2] m-2: cached (unchanged)\n']);
+  });
+  it('rewrite one line on a terminal with model, step and elapsed time', () => {
+    const out: string[] = [];
+    const p = progressReporter({ stdout: { write: (t: string) => out.push(t), isTTY: true }, stderr: { write: () => {} } });
+    p.onProgress(event('analysing'));
+    p.onProgress(event('done'));
+    p.finish();
+    expect(out[0]).toBe('\r[0/2] m-1: analysing 1.5 s');
+    // The shorter line is padded to cover the previous one.
+    expect(out[1]).toBe('\r' + '[1/2] m-1: done 1.5 s'.padEnd('[0/2] m-1: analysing 1.5 s'.length));
+    expect(out[2]).toMatch(/^\r +\r$/);
+  });
+});
