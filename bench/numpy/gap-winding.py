@@ -53,9 +53,118 @@ def nodes_per_step(spreads, length):
     return [int(np.ceil(4 + 0.6 * TAU * (sp + 2 * np.pi / length))) for sp in spreads]
 
 
-def winding_on_grid(n, level):
+def floquet(s1, s2):
+    u = np.broadcast_to(np.eye(2, dtype=complex), (s1.size, 2, 2)).copy()
+    for h in step_hamiltonians(s1, s2):
+        w, q = np.linalg.eigh(h)
+        u = exp_from_eigh(w, q, TAU) @ u
+    return u
+
+
+def distance_to_cut(s1, s2, cut):
+    """Distance (units pi/T) from the cut to the nearest quasienergy, batched."""
+    phi = np.angle(np.linalg.eigvals(floquet(np.atleast_1d(s1), np.atleast_1d(s2))))
+    eps = -phi / np.pi
+    diff = np.mod(eps - cut + 1, 2) - 1
+    return np.min(np.abs(diff), axis=-1)
+
+
+def polish(f, x, h, floor):
+    fx = float(f(x)[0])
+    for _ in range(200):
+        if h <= 1e-11 or fx <= floor * floor:
+            break
+        pts = np.array([[x[0] + h, x[1]], [x[0] - h, x[1]], [x[0], x[1] + h], [x[0], x[1] - h], [x[0] + h, x[1] + h]])
+        vals = f(pts.T)
+        p1, m1, p2, m2, pp = vals
+        g = np.array([(p1 - m1) / (2 * h), (p2 - m2) / (2 * h)])
+        h11, h22 = (p1 - 2 * fx + m1) / h ** 2, (p2 - 2 * fx + m2) / h ** 2
+        h12 = (pp - p1 - p2 + fx) / h ** 2
+        det = h11 * h22 - h12 * h12
+        cand, cval = list(pts), list(vals)
+        if h11 > 0 and det > 0:
+            step = -np.array([h22 * g[0] - h12 * g[1], h11 * g[1] - h12 * g[0]]) / det
+            if np.hypot(*step) <= 4 * h:
+                cand.append(x + step)
+                cval.append(float(f(x + step)[0]))
+        b = int(np.argmin(cval))
+        if cval[b] < fx:
+            moved = np.hypot(*(cand[b] - x))
+            x, fx = np.asarray(cand[b], float), float(cval[b])
+            if moved < h:
+                h = max(moved, h / 4)
+        else:
+            curv = max(h11, h22, 0) / 2
+            if curv > 0 and h * np.sqrt(curv) < 0.02 * np.sqrt(fx):
+                break
+            h /= 4
+    return np.mod(x, 1), fx
+
+
+def probe_foci(cut, n=24, sharp=4 / 16, floor=1e-7):
     s = np.arange(n) / n
-    s1, s2 = (x.ravel() for x in np.meshgrid(s, s, indexing="ij"))
+    g1, g2 = np.meshgrid(s, s, indexing="ij")
+    d = distance_to_cut(g1.ravel(), g2.ravel(), cut).reshape(n, n)
+    better = np.zeros((n, n), bool)
+    idx = np.arange(n * n).reshape(n, n)
+    for a in (-1, 0, 1):
+        for b in (-1, 0, 1):
+            if a == 0 and b == 0:
+                continue
+            nb, ni = np.roll(d, (-a, -b), (0, 1)), np.roll(idx, (-a, -b), (0, 1))
+            better |= (nb < d) | ((nb == d) & (ni < idx))
+    minima = sorted(zip(d[~better], idx[~better]))
+    slope = np.max([(np.roll(d, sh, ax) - d) * n for sh in (1, -1) for ax in (0, 1)], axis=0)
+    foci = []
+    f = lambda x: distance_to_cut(np.atleast_1d(x[0]), np.atleast_1d(x[1]), cut) ** 2
+    for rank, (dv, i) in enumerate(minima):
+        if len(foci) >= 6:
+            break
+        i1, i2 = divmod(int(i), n)
+        if rank > 0 and not dv < 2 * sharp * slope[i1, i2]:
+            continue
+        at, fx = polish(f, np.array([i1 / n, i2 / n]), 1 / n, floor)
+        dist = np.sqrt(fx)
+        dw = 0.25 / n
+        widths = []
+        for e in ((dw, 0), (0, dw)):
+            plus, minus = (float(distance_to_cut(at[0] + sg * e[0], at[1] + sg * e[1], cut)[0]) for sg in (1, -1))
+            v2 = ((plus ** 2 + minus ** 2) / 2 - dist ** 2) / dw ** 2
+            widths.append(dist / np.sqrt(v2) if v2 > 0 else np.inf)
+        if any(np.hypot(*(np.abs(fo[0] - at) - np.round(np.abs(fo[0] - at)))) < 1e-6 for fo in foci):
+            continue
+        foci.append((at, dist, widths))
+    return foci
+
+
+def graded_axis(n, foci):
+    """Inverse cumulative of (1 - a) + a * mean of wrapped Cauchy densities, by vectorised bisection."""
+    if not foci:
+        return np.arange(n) / n
+    c = np.array([f[0] for f in foci])[:, None]
+    r = np.exp(-2 * np.pi * np.maximum(np.array([f[1] for f in foci]), 1e-12))[:, None]
+
+    def part(x):
+        th = 2 * np.pi * (x[None, :] - c)
+        return x[None, :] - c + np.arctan2(r * np.sin(th), 1 - r * np.cos(th)) / np.pi
+
+    def cdf(x):
+        return 0.5 * x + 0.5 * np.mean(part(x) - part(np.zeros_like(x)), axis=0)
+
+    target = np.arange(n) / n
+    lo, hi = np.zeros(n), np.ones(n)
+    for _ in range(60):
+        mid = 0.5 * (lo + hi)
+        below = cdf(mid) < target
+        lo, hi = np.where(below, mid, lo), np.where(below, hi, mid)
+    out = 0.5 * (lo + hi)
+    out[0] = 0.0
+    return out
+
+
+def winding_on_grid(n, level, axes_foci):
+    a1, a2 = graded_axis(n, axes_foci[0]), graded_axis(n, axes_foci[1])
+    s1, s2 = (x.ravel() for x in np.meshgrid(a1, a2, indexing="ij"))
     count = s1.size
     hs = step_hamiltonians(s1, s2)
     eig = [np.linalg.eigh(h) for h in hs]
@@ -107,12 +216,20 @@ def winding_on_grid(n, level):
 
 
 def work():
+    axes_foci = ([], [])
+    for cut in CUTS:
+        for at, _dist, widths in probe_foci(cut):
+            for axis in (0, 1):
+                w = widths[axis]
+                while w < 4 / 16:
+                    axes_foci[axis].append((at[axis], w))
+                    w *= 8
     history = [[] for _ in CUTS]
     done = [False] * len(CUTS)
     n, level = 16, 0
     while not all(done) and n <= 129:
         size = n + (n % 2)
-        values, tnodes = winding_on_grid(size, level)
+        values, tnodes = winding_on_grid(size, level, axes_foci)
         for g, value in enumerate(values):
             if done[g]:
                 continue

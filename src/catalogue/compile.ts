@@ -7,6 +7,7 @@
 import type { Amplitude, MatrixEntry, ModelDocument, Modulation as ModulationSpec, Quantity } from './model-types.generated.ts';
 import type { DriveSegment, DriveTerm, LatticeDrive, Modulation, VectorPotentialComponent } from '../numerics/drive.ts';
 import { zeros, type Complex, type ComplexMatrix } from '../numerics/linalg/complex-matrix.ts';
+import { NambuInputError, nambuDrive, type PairingTerm } from '../numerics/bdg.ts';
 import { joinPointer, type Issue } from './diagnostics.ts';
 import { evaluateParameters, evaluateQuantity, isIssue } from './parameters.ts';
 import { checkSemantics } from './semantic-checks.ts';
@@ -34,14 +35,6 @@ export class CompileError extends Error {
   }
 }
 
-/** A pairing term resolved to indices, per segment; Δ c†_{to,R+n} c†_{from,R} + h.c. */
-export interface CompiledPairing {
-  from: number;
-  to: number;
-  offset: number[];
-  amplitude: Complex;
-  modulation: Modulation;
-}
 
 export function compileModel(model: LoadedModel, overrides?: Record<string, number>): CompiledModel {
   const doc = model.document;
@@ -96,7 +89,7 @@ export function compileModel(model: LoadedModel, overrides?: Record<string, numb
   const dim = doc.lattice.dimension;
   const zeroOffset = new Array<number>(dim).fill(0);
   const segments: DriveSegment[] = [];
-  const pairings: CompiledPairing[][] = [];
+  const pairings: PairingTerm[][] = [];
   doc.drive.segments.forEach((s, si) => {
     const sp = joinPointer('/drive/segments', si);
     const terms: DriveTerm[] = [];
@@ -159,10 +152,12 @@ export function compileModel(model: LoadedModel, overrides?: Record<string, numb
   return { drive, symmetries, nambu };
 }
 
-/**
- * Models with pairing terms act on Nambu components; the Bogoliubov–de Gennes
- * builder belongs to the numerics (src/numerics/bdg.ts, nambuDrive).
- */
-function buildNambu(id: string, _normal: LatticeDrive, _pairings: CompiledPairing[][]): LatticeDrive {
-  throw new CompileError(id, [{ pointer: '/drive/segments', message: 'pairing terms need the Nambu builder (src/numerics/bdg.ts), which is not part of this build yet' }]);
+/** Models with pairing terms act on Nambu components (particles, then holes); see src/numerics/bdg.ts. */
+function buildNambu(id: string, normal: LatticeDrive, pairings: PairingTerm[][]): LatticeDrive {
+  try {
+    return nambuDrive(normal, pairings);
+  } catch (error) {
+    if (error instanceof NambuInputError) throw new CompileError(id, [{ pointer: '/drive/segments', message: error.message }]);
+    throw error;
+  }
 }

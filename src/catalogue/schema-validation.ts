@@ -211,7 +211,7 @@ export function describeSchemaError(error: ErrorObject): Issue | undefined {
     case 'maxProperties':
       return { pointer: at, message: `has more than ${String(params.limit)} entries` };
     case 'uniqueItems':
-      return { pointer: at, message: `entries ${String(params.j)} and ${String(params.i)} are identical`, hint: 'remove the duplicate' };
+      return { pointer: at, message: `entries ${String(params.i)} and ${String(params.j)} are identical`, hint: 'remove the duplicate' };
     case 'discriminator': {
       const options = ((parent.oneOf as SchemaNode[] | undefined) ?? []).map((b) => (b.properties as Record<string, SchemaNode>)?.[String(params.tag)]?.const);
       if (params.error === 'mapping') {

@@ -7,9 +7,10 @@ import { closestName } from '../catalogue/diagnostics.ts';
 import { checkCommand } from './commands/check.ts';
 import { helpCommand, overview } from './commands/help.ts';
 import { newCommand } from './commands/new.ts';
+import { siteCommand } from './commands/site.ts';
 import { EXIT_OK, EXIT_USAGE, type Command, type CommandIO } from './command.ts';
 
-export const commands: Command[] = [checkCommand, newCommand];
+export const commands: Command[] = [checkCommand, newCommand, siteCommand];
 commands.push(helpCommand(() => commands));
 
 export async function main(argv: string[], io: Partial<CommandIO> = {}): Promise<number> {

@@ -11,7 +11,7 @@
  * about 1/16 of the reported change).
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
-import { distance, identity, multiply, zeros, frobeniusNorm } from './linalg/complex-matrix.ts';
+import { distance, identity, multiply, zeros } from './linalg/complex-matrix.ts';
 import { expMinusIHt, prepareExponential } from './linalg/exponential.ts';
 import type { LatticeDrive } from './drive.ts';
 import { angularFrequency } from './drive.ts';
@@ -71,14 +71,25 @@ function magnusSegment(bloch: PreparedBloch, index: number, t0: number, t1: numb
   return magnusCF4AtNodes(sampler, bloch.size, t0, t1, slices);
 }
 
-/** Refines the Magnus slice count of one time-dependent segment. */
+/**
+ * A momentum-independent bound on ‖H(s, t)‖₂ over a segment: Σ |amplitude|·max|f|.
+ * Starting every momentum from the same slice count keeps the Magnus grids (and the
+ * cached node tables) shared across a k grid.
+ */
+function segmentEnergyScale(drive: LatticeDrive, index: number): number {
+  let scale = 0;
+  for (const term of drive.segments[index].terms) {
+    const m = term.modulation;
+    const fMax = m.kind === 'constant' ? 1 : Math.abs(m.mean) + m.components.reduce((sum, c) => sum + Math.abs(c.amplitude), 0);
+    scale += Math.hypot(term.amplitude.re, term.amplitude.im) * fMax;
+  }
+  return scale;
+}
+
+/** Refines the Magnus slice count of one time-dependent segment by doubling from a k-independent start. */
 function planSegment(drive: LatticeDrive, bloch: PreparedBloch, index: number, start: number, tolerance: number, maxSlices: number): SegmentPlan {
   const seg = drive.segments[index];
-  const n = bloch.size;
-  const scratch = zeros(n, n);
-  let scale = 0;
-  for (const x of [0, 0.5, 1]) scale = Math.max(scale, frobeniusNorm(bloch.segmentAt(index, start + x * seg.duration, scratch)));
-  scale += segmentFrequency(drive, index);
+  const scale = segmentEnergyScale(drive, index) + segmentFrequency(drive, index);
   let slices = Math.min(maxSlices, Math.max(2, Math.ceil((seg.duration * scale) / 0.5)));
   let coarse = magnusSegment(bloch, index, start, start + seg.duration, slices);
   for (;;) {

@@ -34,7 +34,7 @@ import { quasienergyBelowCut } from './effective-hamiltonian.ts';
 import type { GeneratorSeries, LoopPlan } from './winding-loop.ts';
 import { generatorAt } from './winding-loop.ts';
 import { centralDifference, gaussLegendre } from './winding-grid.ts';
-import { densitySumTwo, framesTwo, propagateTwo } from './winding-kernel-two.ts';
+import { densitySumTwo, framesTwo, propagateTwo, unitaryEigenTwo } from './winding-kernel-two.ts';
 
 export interface WindingGrid {
   /** Reduced momenta along b₁ and b₂ (uniform in the grid index σ = i/n). */
@@ -210,25 +210,32 @@ export function windingOnGrid(plan: LoopPlan, series: GeneratorSeries[], cuts: n
   const xRe = cuts.map(() => new Float64Array(count * nn)), xIm = cuts.map(() => new Float64Array(count * nn));
   const minimalDistance = cuts.map(() => Infinity);
   const lambda = new Float64Array(n);
+  const phases = new Float64Array(n);
   for (let k = 0; k < count; k++) {
-    const eig = new UnitaryEigen(load(floquetRe, floquetIm, k * nn, u));
-    save(eig.vectors, qfRe, qfIm, k * nn);
+    if (twoBand) unitaryEigenTwo(floquetRe, floquetIm, k * nn, phases, 0, qfRe, qfIm);
+    else {
+      const eig = new UnitaryEigen(load(floquetRe, floquetIm, k * nn, u));
+      phases.set(eig.phases);
+      save(eig.vectors, qfRe, qfIm, k * nn);
+    }
+    load(qfRe, qfIm, k * nn, qf);
     for (let j = 0; j < g; j++) {
       for (let a = 0; a < n; a++) {
-        const th = quasienergyBelowCut(eig.phases[a], 1, cutTheta[j]);
+        const th = quasienergyBelowCut(phases[a], 1, cutTheta[j]);
         theta[j][k * n + a] = th;
         lambda[a] = th / length;
         const dist = Math.min(cutTheta[j] - th, th - cutTheta[j] + 2 * Math.PI) / Math.PI;
         if (dist < minimalDistance[j]) minimalDistance[j] = dist;
       }
+      // X = Q_F diag(θ/T′) Q_F†.
       for (let b = 0; b < n; b++) {
         for (let rr = 0; rr < n; rr++) {
           const p = rr * n + b;
-          work.re[p] = eig.vectors.re[p] * lambda[b];
-          work.im[p] = eig.vectors.im[p] * lambda[b];
+          work.re[p] = qf.re[p] * lambda[b];
+          work.im[p] = qf.im[p] * lambda[b];
         }
       }
-      multiplyAdjointRight(work, eig.vectors, x);
+      multiplyAdjointRight(work, qf, x);
       save(x, xRe[j], xIm[j], k * nn);
     }
   }

@@ -174,3 +174,53 @@ export function densitySumTwo(
   out[0] = accIm;
   return acc;
 }
+
+/**
+ * Eigen-decomposition of the 2×2 unitary at offset o (the same route as
+ * linalg/unitary-eigen.ts, in closed form): with e^{2iα} = det U,
+ * M = e^{−iα}U = cos β − i sin β (â·σ) ∈ SU(2), so U has eigenphases α − β
+ * and α + β on the eigenvectors of â·σ with eigenvalues +1 and −1. â·σ is
+ * read off the anti-Hermitian part of M (symmetrised); β = atan2(|a|, a₀)
+ * keeps full relative accuracy for nearly degenerate eigenvalues. Writes the
+ * eigenphases to phases[po], phases[po+1] and the eigenvectors as columns
+ * (packed 2×2) at offset o of vRe/vIm.
+ */
+export function unitaryEigenTwo(
+  uRe: Float64Array, uIm: Float64Array, o: number,
+  phases: Float64Array, po: number,
+  vRe: Float64Array, vIm: Float64Array,
+): void {
+  const r00 = uRe[o], i00 = uIm[o], r01 = uRe[o + 1], i01 = uIm[o + 1];
+  const r10 = uRe[o + 2], i10 = uIm[o + 2], r11 = uRe[o + 3], i11 = uIm[o + 3];
+  const detRe = r00 * r11 - i00 * i11 - (r01 * r10 - i01 * i10);
+  const detIm = r00 * i11 + i00 * r11 - (r01 * i10 + i01 * r10);
+  const alpha = 0.5 * Math.atan2(detIm, detRe);
+  const cr = Math.cos(alpha), ci = -Math.sin(alpha);
+  // M = e^{−iα} U.
+  const m00r = cr * r00 - ci * i00, m00i = cr * i00 + ci * r00;
+  const m01r = cr * r01 - ci * i01, m01i = cr * i01 + ci * r01;
+  const m10r = cr * r10 - ci * i10, m10i = cr * i10 + ci * r10;
+  const m11r = cr * r11 - ci * i11, m11i = cr * i11 + ci * r11;
+  const a0 = 0.5 * (m00r + m11r);
+  const az = 0.5 * (m11i - m00i);
+  const ax = -0.5 * (m10i + m01i);
+  const ay = 0.5 * (m10r - m01r);
+  const r = Math.sqrt(ax * ax + ay * ay + az * az);
+  const beta = Math.atan2(r, a0);
+  phases[po] = alpha - beta;
+  phases[po + 1] = alpha + beta;
+  // Eigenvector of â·σ for +1, from whichever form avoids cancellation.
+  let x0r: number, x0i: number, x1r: number, x1i: number;
+  if (r === 0) {
+    x0r = 1; x0i = 0; x1r = 0; x1i = 0;
+  } else if (az >= 0) {
+    x0r = az + r; x0i = 0; x1r = ax; x1i = ay;
+  } else {
+    x0r = ax; x0i = -ay; x1r = r - az; x1i = 0;
+  }
+  const norm = Math.sqrt(x0r * x0r + x0i * x0i + x1r * x1r + x1i * x1i);
+  x0r /= norm; x0i /= norm; x1r /= norm; x1i /= norm;
+  // Columns: v₊ = (x0, x1), v₋ = (−conj x1, conj x0).
+  vRe[o] = x0r; vIm[o] = x0i; vRe[o + 2] = x1r; vIm[o + 2] = x1i;
+  vRe[o + 1] = -x1r; vIm[o + 1] = x1i; vRe[o + 3] = x0r; vIm[o + 3] = -x0i;
+}

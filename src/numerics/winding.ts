@@ -44,6 +44,7 @@ import { gradedAxis } from './winding-grid.ts';
 import type { CutProbe } from './winding-probe.ts';
 import { probeCut } from './winding-probe.ts';
 import { windingOnGrid } from './winding-integral.ts';
+import { unitaryEigenTwo } from './winding-kernel-two.ts';
 import { latticeOrientation } from './chern-fhs.ts';
 
 export interface WindingOptions {
@@ -160,7 +161,16 @@ export function gapWindingNumbers(drive: LatticeDrive, gapLabels: number[], opti
   const series = generatorSeries(drive, plan);
   const nodes0 = baseNodes(drive, plan, corners);
   // Quasienergies (units π/T) of the loop's own U(s, T), the operator the integral closes on.
-  const spectrum = (s: number[]) => Array.from(new UnitaryEigen(loopFloquetOperator(series, plan, s[0], s[1])).phases, (phi) => wrapQuasienergy(-phi / Math.PI));
+  const twoPhases = new Float64Array(2), twoVectors = [new Float64Array(4), new Float64Array(4)];
+  const spectrum = (s: number[]) => {
+    const u = loopFloquetOperator(series, plan, s[0], s[1]);
+    let phases: ArrayLike<number>;
+    if (u.rows === 2) {
+      unitaryEigenTwo(u.re, u.im, 0, twoPhases, 0, twoVectors[0], twoVectors[1]);
+      phases = twoPhases;
+    } else phases = new UnitaryEigen(u).phases;
+    return Array.from(phases, (phi) => wrapQuasienergy(-phi / Math.PI));
+  };
   const probes = gapLabels.map((g) => probeCut(spectrum, g, o.probeGrid, { sharpWidth: FOCUS_SPACINGS / o.initialGrid, floor: o.closingFloor / 10 }));
 
   const closed = probes.map((p) => p.minimalDistance < o.closingFloor);

@@ -23,3 +23,15 @@ describe('models/', async () => {
     expect(`${document.id}.json`).toBe(file);
   });
 });
+
+describe('docs/model-format.md', () => {
+  it('has a worked example that passes every check', async () => {
+    const { checkModelSource } = await import('../../src/catalogue/load.ts');
+    const text = readFileSync('docs/model-format.md', 'utf8');
+    const example = /## Worked example[\s\S]*?```json\n([\s\S]*?)```/.exec(text)?.[1];
+    expect(example).toBeDefined();
+    const { model, diagnostics } = checkModelSource('two-step-chain.json', example!);
+    expect(diagnostics).toEqual([]);
+    expect(model?.parameters.J2).toBeCloseTo(1.7 * Math.PI, 14);
+  });
+});

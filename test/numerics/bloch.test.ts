@@ -3,7 +3,7 @@ import { blochHamiltonian, kickGenerator, prepareBloch } from '../../src/numeric
 import type { DriveTerm, LatticeDrive } from '../../src/numerics/drive.ts';
 import { distance, hermiticityDefect, zeros } from '../../src/numerics/linalg/complex-matrix.ts';
 import { seededRandom } from '../support/random.ts';
-import { expectBelow, expectWithin } from './linalg/helpers.ts';
+import { expectBelow, expectWithin } from './linalg/comparisons.ts';
 
 const constant = { kind: 'constant' } as const;
 const hop = (from: number, to: number, offset: number[], re: number, im = 0): DriveTerm => ({ from, to, offset, amplitude: { re, im }, modulation: constant });

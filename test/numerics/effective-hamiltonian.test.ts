@@ -4,7 +4,7 @@ import { HermitianEigen } from '../../src/numerics/linalg/hermitian-eigen.ts';
 import { expMinusIHt } from '../../src/numerics/linalg/exponential.ts';
 import { distance, hermiticityDefect } from '../../src/numerics/linalg/complex-matrix.ts';
 import { hermitianWithValues, randomHermitian, randomUnitary, seededRandom, unitaryWithPhases } from '../support/random.ts';
-import { expectBelow, expectWithin } from './linalg/helpers.ts';
+import { expectBelow, expectWithin } from './linalg/comparisons.ts';
 
 describe('effectiveHamiltonian', () => {
   it('reproduces U = exp(−iH_eff T) with every eigenvalue in (ε − 2π/T, ε]', () => {

@@ -11,7 +11,12 @@ import type { LatticeDrive } from '../../src/numerics/drive.ts';
 import type { WindingReport } from '../../src/numerics/portrait.ts';
 import { gapWindingNumbers } from '../../src/numerics/winding.ts';
 import { centralDifference, gaussLegendre, gradedAxis } from '../../src/numerics/winding-grid.ts';
-import { generatorSeries, planLoop } from '../../src/numerics/winding-loop.ts';
+import { generatorAt, generatorSeries, loopFloquetOperator, magnusSliceCounts, pieceGenerator, planLoop } from '../../src/numerics/winding-loop.ts';
+import { distance, zeros } from '../../src/numerics/linalg/complex-matrix.ts';
+import { floquetOperator } from '../../src/numerics/propagator.ts';
+import { circularHoneycombDrive } from '../support/drives/honeycomb.ts';
+import { randomUnitary, seededRandom, unitaryWithPhases } from '../support/random.ts';
+import { unitaryEigenTwo } from '../../src/numerics/winding-kernel-two.ts';
 import { windingOnGrid } from '../../src/numerics/winding-integral.ts';
 import { prepareBloch } from '../../src/numerics/bloch.ts';
 import { FloquetSampler } from '../../src/numerics/quasienergy-bands.ts';
@@ -309,7 +314,72 @@ describe('static Qi–Wu–Zhang model run as a drive (Qi, Wu, Zhang, PRB 74, 08
   });
 });
 
+describe('loop pieces', () => {
+  it('the Fourier series of each piece reproduces the Bloch generator at arbitrary momenta (to 1e-13)', () => {
+    // Circularly driven honeycomb: Peierls phases and Magnus slices, offsets up to 1 in each direction.
+    const drive = circularHoneycombDrive({ hopping: 1, amplitude: 0.8, frequency: 6, mass: 0.2 });
+    const plan = planLoop(drive, prepareBloch(drive, [0, 0]), magnusSliceCounts(drive, [[0, 0]]));
+    const series = generatorSeries(drive, plan);
+    const random = seededRandom(20261201);
+    const gen = zeros(2, 2), scratch = zeros(2, 2), re = new Float64Array(4), im = new Float64Array(4);
+    for (let trial = 0; trial < 5; trial++) {
+      const s = [random(), random()];
+      const bloch = prepareBloch(drive, s);
+      plan.pieces.forEach((piece, p) => {
+        pieceGenerator(bloch, piece, gen, scratch);
+        generatorAt(series[p], s[0], s[1], re, im, 0);
+        for (let e = 0; e < 4; e++) expect(Math.hypot(re[e] - gen.re[e], im[e] - gen.im[e])).toBeLessThanOrEqual(1e-13);
+      });
+    }
+  });
+
+  it('the product over pieces equals the propagator’s Floquet operator (constant steps: to 1e-12; Magnus slices: to 1e-8)', () => {
+    const random = seededRandom(7);
+    for (const [drive, tol] of [
+      [checkerboardDrive({ hopping: 0.4 * Math.PI, offset: 0.3, stepDuration: 1 }), 1e-12],
+      [circularHoneycombDrive({ hopping: 1, amplitude: 0.8, frequency: 6, mass: 0.2 }), 1e-8],
+    ] as const) {
+      const plan = planLoop(drive, prepareBloch(drive, [0, 0]), magnusSliceCounts(drive, [[0, 0]]));
+      const series = generatorSeries(drive, plan);
+      for (let trial = 0; trial < 3; trial++) {
+        const s = [random(), random()];
+        expect(distance(loopFloquetOperator(series, plan, s[0], s[1]), floquetOperator(drive, s).operator)).toBeLessThanOrEqual(tol);
+      }
+    }
+  });
+});
+
 describe('two-band kernel', () => {
+  it('closed-form 2×2 unitary eigen-decomposition satisfies U v = e^{iφ} v and v†v = 1 (to 1e-13), also near degeneracy', () => {
+    const random = seededRandom(99);
+    const phases = new Float64Array(2), vRe = new Float64Array(4), vIm = new Float64Array(4);
+    const cases = [0.7, 1e-5, 1e-9].map((split) => {
+      const q = randomUnitary(random, 2);
+      const a = 2 * Math.PI * random();
+      return unitaryWithPhases(q, [a, a + split]);
+    });
+    cases.push(randomUnitary(random, 2));
+    for (const u of cases) {
+      unitaryEigenTwo(u.re, u.im, 0, phases, 0, vRe, vIm);
+      for (let c = 0; c < 2; c++) {
+        const er = Math.cos(phases[c]), ei = Math.sin(phases[c]);
+        let norm = 0;
+        for (let r = 0; r < 2; r++) {
+          let sr = 0, si = 0;
+          for (let l = 0; l < 2; l++) {
+            const xr = u.re[r * 2 + l], xi = u.im[r * 2 + l], yr = vRe[l * 2 + c], yi = vIm[l * 2 + c];
+            sr += xr * yr - xi * yi;
+            si += xr * yi + xi * yr;
+          }
+          const tr = er * vRe[r * 2 + c] - ei * vIm[r * 2 + c], ti = er * vIm[r * 2 + c] + ei * vRe[r * 2 + c];
+          expect(Math.hypot(sr - tr, si - ti)).toBeLessThanOrEqual(1e-13);
+          norm += vRe[r * 2 + c] ** 2 + vIm[r * 2 + c] ** 2;
+        }
+        expect(Math.abs(norm - 1)).toBeLessThanOrEqual(1e-13);
+      }
+    }
+  });
+
   it('agrees with the general-size path on the same grid (to 1e-10)', () => {
     const drive = checkerboardDrive({ hopping: 0.4 * Math.PI, offset: 0.3, stepDuration: 1 });
     const plan = planLoop(drive, prepareBloch(drive, [0, 0]), []);

@@ -8,6 +8,7 @@ import type { Certificate } from '../verify/certificate.ts';
 import type { Verdict } from '../verify/verdict.ts';
 import type { PortraitEntry } from '../verify/sheet-verdicts.ts';
 import type { AnomalousClass } from '../verify/anomalous.ts';
+import type { BandPathRecord } from './band-path.ts';
 
 export const RECORD_FORMAT = 1;
 
@@ -69,6 +70,8 @@ export interface SpectrumRecord {
 export interface AnalysisRecord {
   kind: 'sheet' | 'chain';
   grid: number[];
+  /** Bands along a path through the Brillouin zone, for plots (null when not sampled). */
+  bandPath: BandPathRecord | null;
   gaps: GapRecord[];
   bands: BandRecord[];
   spectra: SpectrumRecord[];

@@ -88,6 +88,7 @@ export function sheetAnalysis(p: SheetPortrait, policy: VerdictPolicy): Analysis
   return {
     kind: 'sheet',
     grid: [...p.grid],
+    bandPath: null,
     gaps: p.gaps.map((g) => {
       const ev = gapEvidence(p, g.label, policy);
       return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };

@@ -132,6 +132,7 @@ export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisR
   return {
     kind: 'chain',
     grid: [...view.grid],
+    bandPath: null,
     gaps: view.gaps.map((g) => {
       const ev = gapEvidence(view, g.label, policy);
       return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };

@@ -108,7 +108,7 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
     pending.push({ model, key, index });
   });
 
-  const tasks: VerifyTask[] = pending.map(({ model }) => ({ file: model.file, source: model.source, engine: identity, policy }));
+  const tasks: VerifyTask[] = pending.map(({ model }) => ({ model, engine: identity, policy }));
   const started = new Map<number, number>();
   const outcomes = await runTasks<VerifyTask, ModelOutcome>(tasks, {
     entry: options.taskModule ?? defaultTaskModule(),

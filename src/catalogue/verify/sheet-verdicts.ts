@@ -182,13 +182,13 @@ export function judgeSheet(p: SheetPortrait, claims: NormalizedClaim[], policy: 
       case 'chern': {
         const ordered = bandsFromCut(p.bands, claim.cut);
         const claimedBands = claims.filter((c) => c.kind === 'chern' && sameLabel(c.cut, claim.cut)).length;
-        const band = ordered && ordered.length === claimedBands ? ordered[claim.band] : undefined;
+        const band = ordered && ordered.length >= claimedBands ? ordered[claim.band] : undefined;
         if (!band) {
           const certificate = emptyCertificate('chern');
           certificate.grid = [...p.grid];
           certificate.gaps = p.gaps.map((g) => gapEvidence(p, g.label, policy));
-          // A different number of band groups means a gap the claim relies on is closed (or an
-          // unexpected one is open): the band a claim names is then not the band computed.
+          // Fewer band groups than claimed bands means a gap the claims rely on is closed (bands
+          // touch and merge into one group): the band a claim names is then not a band computed.
           const why = !ordered
             ? `no open gap was found at the cut ${formatQuasienergy(claim.cut)}`
             : `the file claims ${claimedBands} band(s) above the cut at ${formatQuasienergy(claim.cut)}, but ${ordered.length} band group(s) lie between open gaps (bands that touch count as one group; open gaps: ${p.gaps.filter((g) => g.open).map((g) => formatQuasienergy(g.label)).join(', ') || 'none'})`;

@@ -23,6 +23,7 @@ import type { EngineSet } from './engines.ts';
 import type { VerdictPolicy } from './policy.ts';
 import { DEFAULT_POLICY } from './policy.ts';
 import { analysePoint } from './analyse-point.ts';
+import { bandPath } from '../records/band-path.ts';
 import { countVerdicts, modelStatus } from './status.ts';
 
 export interface ModelOutcome {
@@ -108,7 +109,14 @@ export function verifyModel(
     onStep(`sweep ${sweep.name}`);
     sweepRecords.push(runSweepGrid(loaded, claims, engines, policy, sweep, symmetricTimes, (done, total) => onStep(`sweep ${sweep.name} ${done}/${total}`)));
   }
-  const stages = { ...point.stages, sweeps: performance.now() - sweepStart };
+  const stages: Record<string, number> = { ...point.stages, sweeps: performance.now() - sweepStart };
+  const pathStart = performance.now();
+  try {
+    point.analysis.bandPath = bandPath(point.drive.drive);
+  } catch {
+    point.analysis.bandPath = null; // plot data only: a failure here must not change any verdict
+  }
+  stages.bandPath = performance.now() - pathStart;
 
   const { status, reason } = modelStatus(point.verdicts);
   const record: ModelRecord = {

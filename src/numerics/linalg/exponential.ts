@@ -52,16 +52,18 @@ export function exp2x2(a: number, d: number, bRe: number, bIm: number, t: number
   // s = sin(|h|t)/|h|, with the series near |h|t = 0.
   const s = Math.abs(phi) < 1e-4 ? t * (1 - (phi * phi) / 6) : Math.sin(phi) / r;
   const gr = Math.cos(h0 * t), gi = -Math.sin(h0 * t);
-  const n = out.cols;
-  // M = [[c − i s hz, −s hy − i s hx], [s hy − i s hx, c + i s hz]], times e^{−ih₀t}.
-  const put = (i: number, j: number, mr: number, mi: number) => {
-    out.re[i * n + j] = gr * mr - gi * mi;
-    out.im[i * n + j] = gr * mi + gi * mr;
-  };
-  put(i0, i0, c, -s * hz);
-  put(i0, i1, -s * hy, -s * hx);
-  put(i1, i0, s * hy, -s * hx);
-  put(i1, i1, c, s * hz);
+  const n = out.cols, re = out.re, im = out.im;
+  const p00 = i0 * n + i0, p01 = i0 * n + i1, p10 = i1 * n + i0, p11 = i1 * n + i1;
+  // M = e^{−ih₀t} [[c − i s hz, −s hy − i s hx], [s hy − i s hx, c + i s hz]]
+  const sx = s * hx, sy = s * hy, sz = s * hz;
+  re[p00] = gr * c + gi * sz;
+  im[p00] = gi * c - gr * sz;
+  re[p01] = -gr * sy + gi * sx;
+  im[p01] = -gi * sy - gr * sx;
+  re[p10] = gr * sy + gi * sx;
+  im[p10] = gi * sy - gr * sx;
+  re[p11] = gr * c - gi * sz;
+  im[p11] = gi * c + gr * sz;
   return out;
 }
 

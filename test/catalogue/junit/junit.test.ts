@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { createRequire } from 'node:module';
 import { junitXml } from '../../../src/catalogue/junit.ts';
+import { junitSuites } from '../../../src/cli/commands/verify-summary.ts';
+import { invalidRecord } from '../../../src/catalogue/records/record-builder.ts';
+import { judgeSheet } from '../../../src/catalogue/verify/sheet-verdicts.ts';
+import { DEFAULT_POLICY } from '../../../src/catalogue/verify/policy.ts';
+import { twoBandSheet } from '../verify/hand-portraits.ts';
 
 // sax (a strict XML 1.0 parser, installed with the site toolchain) is the outside reference for well-formedness.
 interface SaxParser {
@@ -56,5 +61,30 @@ describe('JUnit XML', () => {
       ['broken-file', '1', '0'],
     ]);
     expect(tags.filter((t) => t.name === 'testcase')).toHaveLength(4);
+  });
+});
+
+describe('JUnit cases from verification records', () => {
+  const engine = { version: 'test', numericsHash: '0'.repeat(64) };
+  const invalid = invalidRecord(engine, 'broken', 'models/broken.json', [{ file: 'models/broken.json', line: 3, column: 7, pointer: '/drive', message: 'missing period', hint: 'add "period"', severity: 'error' }]);
+  // Gap at 0 below tolerance (unsettled), π gap settled: one confirmed, one contradicted, one unsettled claim.
+  const { verdicts } = judgeSheet(twoBandSheet({ gap0: 0.0005 }), [
+    { kind: 'winding', id: 'gap-1/winding', pointer: '/a', gap: 1, value: 1 },
+    { kind: 'winding', id: 'gap-1/winding#2', pointer: '/b', gap: 1, value: 2 },
+    { kind: 'winding', id: 'gap-0/winding', pointer: '/c', gap: 0, value: 1 },
+  ], DEFAULT_POLICY);
+  const sheet = { ...invalid, id: 'sheet', status: 'disputed' as const, claims: verdicts, diagnostics: [] };
+  const report = { records: [invalid, sheet], timings: { broken: { totalMs: 0, stages: {}, cached: false }, sheet: { totalMs: 3000, stages: {}, cached: false } } };
+
+  it('maps confirmed → pass, contradicted → failure, unsettled → skipped (failure under --strict), invalid → error', () => {
+    const loose = junitSuites(report, false);
+    expect(loose[0].cases.map((c) => c.outcome)).toEqual(['error']);
+    expect(loose[0].cases[0].detail).toBe('models/broken.json:3:7 /drive missing period (add "period")');
+    expect(loose[1].cases.map((c) => c.outcome)).toEqual(['pass', 'failure', 'skipped']);
+    expect(junitSuites(report, true)[1].cases.map((c) => c.outcome)).toEqual(['pass', 'failure', 'failure']);
+    // Per-case times share the model's time: 3 s over 3 claims, to 1e-12.
+    expect(Math.abs(loose[1].cases[0].timeSeconds - 1)).toBeLessThan(1e-12);
+    const { tags } = parse(junitXml('strobe check', loose));
+    expect(tags.find((t) => t.name === 'testsuites')!.attributes).toMatchObject({ tests: '4', failures: '1', errors: '1', skipped: '1' });
   });
 });

@@ -47,6 +47,11 @@ describe('verification of purpose-built models', () => {
     // Gap at 0: 2·min|d| = 2 at m = 1, T = 0.5 → 2·0.5/π π/T; the engine refines the minimum, tolerance 1e-6.
     const gap0 = r.analysis!.gaps.find((g) => g.label === 0)!;
     expect(Math.abs(gap0.minimalGap - 1 / Math.PI)).toBeLessThan(1e-6);
+    // Band path for plots: at Γ, E = ±|d(0)| = ±(m + 2) = ±3, so ε = ±3T/π = ±1.5/π π/T (rounded to 1e-5 in records).
+    const path = r.analysis!.bandPath!;
+    expect(path.corners.map((c) => c.label)).toEqual(['Γ', 'b₁/2', '(b₁+b₂)/2', 'Γ']);
+    expect(Math.abs(path.quasienergies[0][0] + 1.5 / Math.PI)).toBeLessThanOrEqual(5e-6);
+    expect(Math.abs(path.quasienergies[0][1] - 1.5 / Math.PI)).toBeLessThanOrEqual(5e-6);
     const cert = verdict('qwz-correct', 'band-0/chern').certificate;
     expect(cert.residual!).toBeLessThanOrEqual(cert.residualTolerance!);
     expect(cert.refinement.length).toBeGreaterThanOrEqual(2);

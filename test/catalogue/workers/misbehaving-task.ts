@@ -2,11 +2,11 @@
 import { handleTask as realHandleTask, type VerifyTask } from '../../../src/catalogue/workers/verify-task.ts';
 
 export function handleTask(task: VerifyTask, report: (step: string) => void) {
-  if (task.file.includes('wrong-frame')) {
+  if (task.model.file.includes('wrong-frame')) {
     for (;;) {
       /* never returns: the pool must terminate this worker */
     }
   }
-  if (task.file.includes('qwz-sign-error')) process.exit(3);
+  if (task.model.file.includes('qwz-sign-error')) process.exit(3);
   return realHandleTask(task, report);
 }

@@ -4,7 +4,7 @@ import {
   multiplyAdjointLeft, multiplyAdjointRight, unitarityDefect,
 } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { randomComplexMatrix, randomHermitian, randomUnitary, seededRandom } from '../../support/random.ts';
-import { expectBelow, expectWithin, fromMathjs, math, toMathjs } from './helpers.ts';
+import { expectBelow, expectWithin, fromMathjs, math, toMathjs } from './comparisons.ts';
 
 describe('complex-matrix products and defects', () => {
   it('A†B and AB† match mathjs ctranspose/multiply (reference: mathjs)', () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { connectedBlocks, expMinusIHt } from '../../../src/numerics/linalg/exponential.ts';
 import { distance, frobeniusNorm, fromArrays, identity, multiply, unitarityDefect, zeros } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { randomHermitian, seededRandom } from '../../support/random.ts';
-import { expectBelow, fixtureMatrix, fromMathjs, linalgFixtures, math, toMathjs } from './helpers.ts';
+import { expectBelow, fixtureMatrix, fromMathjs, linalgFixtures, math, toMathjs } from './comparisons.ts';
 
 describe('expMinusIHt', () => {
   it('matches mathjs expm(−iHt) on seeded random Hermitian matrices (reference: mathjs)', () => {

@@ -3,7 +3,7 @@ import { HermitianEigen } from '../../../src/numerics/linalg/hermitian-eigen.ts'
 import type { ComplexMatrix } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { distance, frobeniusNorm, fromArrays, identity, multiply, multiplyAdjointLeft, zeros } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { hermitianWithValues, randomHermitian, randomUnitary, seededRandom } from '../../support/random.ts';
-import { expectBelow, expectWithin, fixtureMatrix, linalgFixtures, math, toMathjs } from './helpers.ts';
+import { expectBelow, expectWithin, fixtureMatrix, linalgFixtures, math, toMathjs } from './comparisons.ts';
 
 /** ‖AV − VΛ‖_F and ‖V†V − 1‖_F. */
 function defects(a: ComplexMatrix, e: HermitianEigen): { residual: number; orthogonality: number } {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { LuDecomposition } from '../../../src/numerics/linalg/lu.ts';
 import { distance, fromArrays, identity, multiply, zeros } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { randomComplexMatrix, seededRandom } from '../../support/random.ts';
-import { expectBelow, expectWithin, fixtureMatrix, fromMathjs, linalgFixtures, math, toMathjs } from './helpers.ts';
+import { expectBelow, expectWithin, fixtureMatrix, fromMathjs, linalgFixtures, math, toMathjs } from './comparisons.ts';
 
 describe('LuDecomposition', () => {
   it('matches mathjs det and lusolve on seeded random complex matrices (reference: mathjs)', () => {

@@ -3,7 +3,7 @@ import { UnitaryEigen, foldPhase } from '../../../src/numerics/linalg/unitary-ei
 import type { ComplexMatrix } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { distance, fromArrays, identity, multiply, multiplyAdjointLeft, zeros } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { randomUnitary, seededRandom, unitaryWithPhases } from '../../support/random.ts';
-import { expectBelow, expectWithin, fixtureMatrix, linalgFixtures, math, toMathjs } from './helpers.ts';
+import { expectBelow, expectWithin, fixtureMatrix, linalgFixtures, math, toMathjs } from './comparisons.ts';
 
 /** Independent recomputation of ‖UV − VΛ‖_F and ‖V†V − 1‖_F. */
 function defects(u: ComplexMatrix, e: UnitaryEigen): { residual: number; orthogonality: number } {
