@@ -115,7 +115,7 @@ function highFrequencyHamiltonian(drive: LatticeDrive, s: number[], harmonics = 
   for (let m = 1; m <= harmonics; m++) {
     const c = commutator(h.get(m)!, h.get(-m)!);
     for (let p = 0; p < eff.re.length; p++) {
-      eff.re[p] -= c.re[p] / (m * omega);
+      eff.re[p] += c.re[p] / (m * omega);
       eff.im[p] += c.im[p] / (m * omega);
     }
   }

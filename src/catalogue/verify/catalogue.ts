@@ -110,9 +110,12 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
 
   const tasks: VerifyTask[] = pending.map(({ model }) => ({ model, engine: identity, policy }));
   const started = new Map<number, number>();
+  // One model left and no time limit (the usual warm run): starting a worker thread would cost
+  // more than the model, and there is nothing to enforce, so it runs in this thread.
+  const size = options.workers ?? (tasks.length <= 1 && options.timeLimitMs === undefined ? 0 : undefined);
   const outcomes = await runTasks<VerifyTask, ModelOutcome>(tasks, {
     entry: options.taskModule ?? defaultTaskModule(),
-    ...(options.workers !== undefined ? { size: options.workers } : {}),
+    ...(size !== undefined ? { size } : {}),
     ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}),
     onProgress: (i, step) => {
       if (step === 'started') started.set(i, performance.now());
