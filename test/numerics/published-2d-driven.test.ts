@@ -23,7 +23,7 @@ import { seededRandom } from '../support/random.ts';
 import { expectBelow, expectWithin } from './linalg/comparisons.ts';
 
 // ---------------------------------------------------------------------------
-// Small helpers
+// Small utilities
 // ---------------------------------------------------------------------------
 
 /** Quasienergies (units π/T, ascending in (−1, 1]) of U(s, T) and the propagator's accuracy bound (radians). */
@@ -190,11 +190,13 @@ describe('circularly driven honeycomb lattice at high frequency (Oka & Aoki, PRB
    * velocity: the mass v²A₀²/ω of the circularly driven Dirac cone (Oka & Aoki;
    * Kitagawa et al.; from memory).
    *
-   * Neglected terms (the tolerance). The same mod-3 rule makes every product of
-   * an odd number of the H_m(K) vanish (the harmonics of |B⟩⟨A|-type factors are
-   * ≡ 1 and of |A⟩⟨B|-type factors ≡ 2 mod 3, so an alternating product of three
-   * cannot have total harmonic 0): the O(1/ω²) term of H_eff is zero at K, and
-   * the first neglected term is O(A⁴/ω³). Keeping only the leading harmonic, H(K, t)
+   * Neglected terms (the tolerance). The O(1/ω²) term of H_eff is a sum of
+   * nested commutators of three H_m(K) with total harmonic 0 (the terms with H₀
+   * vanish at K). Every H_m(K) is off-diagonal, so only alternating products
+   * |B⟩⟨A|·|A⟩⟨B|·|B⟩⟨A| (or the reverse) survive, and by the same mod-3 rule the
+   * harmonics of |B⟩⟨A| factors are ≡ 1 and of |A⟩⟨B| factors ≡ 2 (mod 3): their
+   * sum is ≡ 1 or 2, never 0. So the O(1/ω²) term is zero at K, and the first
+   * neglected term is O(A⁴/ω³). Keeping only the leading harmonic, H(K, t)
    * is a field of modulus b = 3tJ₁(A₀) rotating at ω, solved exactly in the rotating
    * frame: Δ = √(ω² + 4b²) − ω = 2b²/ω − 2b⁴/ω³ + O(b⁶/ω⁵). So the engine's gap
    * should differ from Δ_eff by δ ≈ −2b⁴/ω³; the other harmonics change δ by a

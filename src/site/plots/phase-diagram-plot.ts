@@ -85,7 +85,7 @@ function curve(input: PhaseDiagramInput): PhaseDiagram {
   });
   if (current.length) segments.push(current.join(' '));
   const gaps = input.values
-    .map((v, i) => (v === null ? `<circle cx="${f(frame.x(xs[i]))}" cy="${f(frame.y(0))}" r="3" fill="#999999"><title>${escapeHtml(`${input.axes[0].parameter}=${xs[i]}: unsettled`)}</title></circle>`) : ''))
+    .map((v, i) => (v === null ? `<circle cx="${f(frame.x(xs[i]))}" cy="${f(frame.y(0))}" r="3" fill="#999999"><title>${escapeHtml(`${input.axes[0].parameter}=${xs[i]}: unsettled`)}</title></circle>` : ''))
     .join('');
   const body = drawAxes(frame, xAxis, yAxis) + segments.map((points) => `<polyline points="${points}" fill="none" stroke="#2f6f73" stroke-width="1.5"/>`).join('') + gaps;
   return { svg: svgDocument(frame, input.title, body), legend: [{ fill: '#999999', text: 'unsettled point' }] };
