@@ -19,6 +19,7 @@ import type { VerdictPolicy } from './policy.ts';
 import type { PortraitEntry } from './sheet-verdicts.ts';
 import { gapEvidence, judgeSheet, sameLabel } from './sheet-verdicts.ts';
 import type { Verdict } from './verdict.ts';
+import type { ConsistencyCheck } from '../../numerics/portrait.ts';
 
 export interface PointResult {
   dimension: number;
@@ -60,6 +61,7 @@ export function analysePoint(
     stages.engine = performance.now() - t;
     Object.assign(stages, prefixed(portrait.timings));
     const { verdicts, entries } = judgeSheet(portrait, claims, policy);
+    distrustOnInconsistency(verdicts, entries, portrait.consistency);
     const anomalous = classifySheet(entries);
     finishAnomalousClaims(verdicts, claims, anomalous, 2, entries);
     return { dimension, analysis: sheetAnalysis(portrait, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
@@ -69,12 +71,39 @@ export function analysePoint(
     stages.engine = performance.now() - t;
     Object.assign(stages, prefixed(view.timings));
     const { verdicts, entries } = judgeChain(view, claims, policy);
+    distrustOnInconsistency(verdicts, entries, view.consistency);
     const pi = entries.find((e) => e.quantity === 'gap-invariant' && e.gap !== null && sameLabel(e.gap, 1));
     const anomalous = classifyChain(pi);
     finishAnomalousClaims(verdicts, claims, anomalous, 1, entries);
     return { dimension, analysis: chainAnalysis(view, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
   }
   throw new Error(`lattice dimension ${dimension} is not supported (only chains and sheets)`);
+}
+
+/**
+ * When a relation that must hold between computed invariants fails (W steps by
+ * C, edge counts equal ±W, Σ C = 0, bulk–end counts), at least one of the
+ * numbers involved is wrong, and we cannot tell which: every settled verdict
+ * and portrait entry becomes unsettled, with the failed relation named.
+ */
+export function distrustOnInconsistency(verdicts: Verdict[], entries: PortraitEntry[], checks: ConsistencyCheck[]): void {
+  const failed = checks.filter((c) => !c.holds && c.inconclusive !== true);
+  if (failed.length === 0) return;
+  const why = `computed invariants contradict each other (${failed.map((c) => `${c.name}: ${c.detail}`).join('; ')})`;
+  for (const v of verdicts) {
+    if (v.outcome === 'unsettled' || v.kind === 'minimal-gap') continue;
+    v.outcome = 'unsettled';
+    v.computed = null;
+    v.message = `${v.message.replace(/\.$/, '')}, but this cannot be trusted: ${why}.`;
+    v.hint = 'refine numerics.kGrid and numerics.ribbon.width; if the relation still fails, report it with the model file';
+    v.certificate.notes.push(why);
+  }
+  for (const e of entries) {
+    if (!e.settled) continue;
+    e.settled = false;
+    e.value = null;
+    e.certificate.notes.push(why);
+  }
 }
 
 function prefixed(timings: Record<string, number>): Record<string, number> {

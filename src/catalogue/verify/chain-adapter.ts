@@ -16,10 +16,16 @@ import type { AnalysisRequest } from './engines.ts';
 import type { ChainInvariant, ChainView } from './chain-view.ts';
 import { wrapLabel } from './claims.ts';
 
+/** Open-chain length used at sweep points, where end modes are not read. */
+export const SWEEP_CHAIN_CELLS = 4;
+
 export function chainOptions(request: AnalysisRequest): ChainAnalysisOptions {
   const hints = request.hints;
   const options: ChainAnalysisOptions = {};
   if (hints?.chainLength !== undefined) options.cells = hints.chainLength;
+  // Sweeps map bulk quantities only; the engine has no switch to skip the open chain, so the
+  // shortest chain it accepts keeps that stage cheap (its end-mode counts are never read then).
+  if (request.skip.has('edges')) options.cells = SWEEP_CHAIN_CELLS;
   if (hints?.kGrid?.[0] !== undefined) options.gapGrid = hints.kGrid[0];
   if (hints?.tolerances?.propagator !== undefined) options.propagator = { tolerance: Math.PI * hints.tolerances.propagator };
   return options;
