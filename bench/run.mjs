@@ -5,12 +5,15 @@
  * Every file bench/workloads/<name>.ts is one workload. Each runs in its own
  * fresh Node process (`node --import tsx`), and, when bench/numpy/<name>.py
  * exists and python3 with numpy is available, its numpy twin runs in its own
- * Python process with single-threaded BLAS. Both print one JSON line (see
- * bench/measure.ts and bench/numpy/_measure.py); this script collects them and
- * prints one JSON document on stdout: wall time of the whole process, compute
- * time of the workload itself, peak RSS, the workload's own result summary, and
- * the ratio numpy/node of compute times (> 1: Node is faster). Progress goes
- * to stderr. Filters select workloads whose name contains any of the words.
+ * Python process with single-threaded BLAS. A workload prints one JSON line as
+ * its last line of stdout: ideally {computeMs, result} (bench/measure.ts,
+ * bench/numpy/_measure.py); a record with `seconds` instead of `computeMs` is
+ * accepted, and any other fields become the result. The harness itself measures
+ * the wall time of the whole process and its peak RSS (bench/peak-rss.mjs for
+ * Node, resource.getrusage for Python), and prints one JSON document on stdout:
+ * per workload, both sides and the ratio numpy/node of compute times (> 1: Node
+ * is faster). Progress goes to stderr. Filters select workloads whose name
+ * contains any of the given words.
  */
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, readdirSync } from 'node:fs';
@@ -22,6 +25,18 @@ const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const workloadDir = path.join(root, 'bench', 'workloads');
 const numpyDir = path.join(root, 'bench', 'numpy');
 const TIMEOUT_MS = 30 * 60 * 1000;
+const RSS_TAG = '@@peak-rss-kb ';
+/** Runs a numpy twin and reports its peak RSS (kilobytes on Linux) the way peak-rss.mjs does for Node. */
+const PYTHON_RUNNER = [
+  'import os, resource, runpy, sys',
+  'script = sys.argv[1]',
+  'sys.argv = [script]',
+  'sys.path.insert(0, os.path.dirname(os.path.abspath(script)))',
+  'try:',
+  '    runpy.run_path(script, run_name="__main__")',
+  'finally:',
+  `    sys.stderr.write("\\n${RSS_TAG}%d\\n" % resource.getrusage(resource.RUSAGE_SELF).ru_maxrss)`,
+].join('\n');
 const SINGLE_THREAD = {
   OPENBLAS_NUM_THREADS: '1',
   OMP_NUM_THREADS: '1',
@@ -45,6 +60,12 @@ function run(command, args, env) {
     child.on('close', (code, signal) => {
       clearTimeout(timer);
       const wallMs = performance.now() - t0;
+      const rssLine = stderr.split('\n').find((l) => l.startsWith(RSS_TAG));
+      const maxRssKb = rssLine ? Number(rssLine.slice(RSS_TAG.length)) : null;
+      stderr = stderr
+        .split('\n')
+        .filter((l) => !l.startsWith(RSS_TAG))
+        .join('\n');
       const last = stdout.trim().split('\n').pop() ?? '';
       let record;
       try {
@@ -53,10 +74,12 @@ function run(command, args, env) {
         record = undefined;
       }
       if (code !== 0 || record === undefined) {
-        resolve({ wallMs, error: signal ? `killed by ${signal}` : `exit code ${code}`, stderrTail: stderr.trim().split('\n').slice(-8).join('\n') });
+        resolve({ wallMs, maxRssKb, error: signal ? `killed by ${signal}` : `exit code ${code}`, stderrTail: stderr.trim().split('\n').slice(-8).join('\n') });
         return;
       }
-      resolve({ wallMs, computeMs: record.computeMs, maxRssKb: record.maxRssKb, ...(record.numpy ? { numpy: record.numpy } : {}), result: record.result });
+      const { computeMs, seconds, result, ...rest } = record;
+      const compute = typeof computeMs === 'number' ? computeMs : typeof seconds === 'number' ? seconds * 1000 : undefined;
+      resolve({ wallMs, computeMs: compute, maxRssKb, result: result ?? rest });
     });
   });
 }
@@ -79,14 +102,14 @@ const py = pythonStatus();
 const results = [];
 for (const name of names) {
   process.stderr.write(`bench: ${name} (node) …\n`);
-  const node = await run(process.execPath, ['--import', 'tsx', path.join(workloadDir, `${name}.ts`)], {});
+  const node = await run(process.execPath, ['--import', 'tsx', '--import', path.join(root, 'bench', 'peak-rss.mjs'), path.join(workloadDir, `${name}.ts`)], {});
   let numpy;
   const script = path.join(numpyDir, `${name}.py`);
   if (!existsSync(script)) numpy = { skipped: 'no numpy twin' };
   else if (!py.available) numpy = { skipped: py.reason };
   else {
     process.stderr.write(`bench: ${name} (numpy) …\n`);
-    numpy = await run('python3', [script], SINGLE_THREAD);
+    numpy = await run('python3', ['-c', PYTHON_RUNNER, script], SINGLE_THREAD);
   }
   const entry = { name, node, numpy };
   if (node.computeMs !== undefined && numpy.computeMs !== undefined) entry.numpyOverNode = numpy.computeMs / node.computeMs;

@@ -1,11 +1,10 @@
 """Shared timing for the numpy twins of bench/workloads: same JSON line as bench/measure.ts.
 
 run.mjs starts each script in a fresh process with OPENBLAS_NUM_THREADS=1 (and
-the other BLAS thread variables), so numbers compare single-threaded work.
-ru_maxrss is in kilobytes on Linux.
+the other BLAS thread variables), so numbers compare single-threaded work, and
+measures wall time and peak RSS itself.
 """
 import json
-import resource
 import sys
 import time
 
@@ -16,5 +15,4 @@ def measure(workload, work):
     t0 = time.perf_counter()
     result = work()
     compute_ms = (time.perf_counter() - t0) * 1e3
-    rss = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss
-    sys.stdout.write(json.dumps({"workload": workload, "computeMs": compute_ms, "maxRssKb": rss, "numpy": np.__version__, "result": result}) + "\n")
+    sys.stdout.write(json.dumps({"workload": workload, "computeMs": compute_ms, "numpy": np.__version__, "result": result}) + "\n")

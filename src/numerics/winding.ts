@@ -60,12 +60,21 @@ export interface WindingOptions {
   probeGrid?: number;
   /** Distance from cut to spectrum (units π/T) below which the gap counts as closed (default 1e-6). */
   closingFloor?: number;
-  /** Options of the time integration of U (time-dependent segments only). */
+  /**
+   * Options of the time integration of U (time-dependent segments only). W
+   * only needs the loop's U(T) to stay well inside the gap (winding-loop.ts):
+   * by default the tolerance on eigenphases starts at 1e-6 and is tightened to
+   * 1/100 of the smallest gap found; with an explicit tolerance, a gap within
+   * 100× of it is flagged in the caveat.
+   */
   propagator?: PropagatorOptions;
 }
 
 export const DEFAULT_WINDING_TOLERANCE = 1e-3;
 export const DEFAULT_CLOSING_FLOOR = 1e-6;
+/** First tolerance on eigenphases for Magnus-sliced segments; tightened to gap/GAP_OVER_TOLERANCE when the gap is narrower. */
+export const DEFAULT_WINDING_PROPAGATOR_TOLERANCE = 1e-6;
+const GAP_OVER_TOLERANCE = 100;
 /** A minimum of the distance is crowded when its width d/v is below this many first-level spacings. */
 const FOCUS_SPACINGS = 4;
 /** Ratio of successive widths in the ladder of foci around one minimum. */
@@ -108,7 +117,8 @@ function baseNodes(drive: LatticeDrive, plan: LoopPlan, momenta: number[][]): nu
   }
   return plan.pieces.map((piece, p) => {
     const phase = piece.duration * (spread[p] + (2 * Math.PI) / plan.length);
-    return Math.ceil(4 + 0.6 * phase);
+    // Magnus slices are short: the integrand is nearly a low-order polynomial on each.
+    return piece.kind === 'slice' ? Math.ceil(0.6 * phase) || 1 : Math.ceil(4 + 0.6 * phase);
   });
 }
 
@@ -143,6 +153,25 @@ function focusAxes(probes: CutProbe[], initialGrid: number): [AxisFocus[], AxisF
 
 const fmt = (x: number) => (Math.abs(x) >= 1e-3 && Math.abs(x) < 1e4 ? x.toPrecision(4) : x.toExponential(2));
 
+/** Loop plan, generator series, base node counts and the loop's own spectrum for one propagator tolerance. */
+function prepareLoop(drive: LatticeDrive, propagator: PropagatorOptions, corners: number[][]) {
+  const plan = planLoop(drive, prepareBloch(drive, [0, 0]), magnusSliceCounts(drive, corners, propagator));
+  const series = generatorSeries(drive, plan);
+  const nodes = baseNodes(drive, plan, corners);
+  // Quasienergies (units π/T) of the loop's own U(s, T), the operator the integral closes on.
+  const twoPhases = new Float64Array(2), twoVectors = [new Float64Array(4), new Float64Array(4)];
+  const spectrum = (s: number[]) => {
+    const u = loopFloquetOperator(series, plan, s[0], s[1]);
+    let phases: ArrayLike<number>;
+    if (u.rows === 2) {
+      unitaryEigenTwo(u.re, u.im, 0, twoPhases, 0, twoVectors[0], twoVectors[1]);
+      phases = twoPhases;
+    } else phases = new UnitaryEigen(u).phases;
+    return Array.from(phases, (phi) => wrapQuasienergy(-phi / Math.PI));
+  };
+  return { plan, series, nodes, spectrum };
+}
+
 /**
  * Rudner–Lindner–Berg–Levin winding numbers of the gaps named by `gapLabels`
  * (quasienergies in units of π/T, each inside the gap it names).
@@ -157,21 +186,19 @@ export function gapWindingNumbers(drive: LatticeDrive, gapLabels: number[], opti
   if (gapLabels.length === 0) return [];
 
   const corners = [[0, 0], [0.5, 0], [0, 0.5], [0.5, 0.5], [0.25, 0.75]];
-  const plan = planLoop(drive, prepareBloch(drive, [0, 0]), magnusSliceCounts(drive, corners, options.propagator));
-  const series = generatorSeries(drive, plan);
-  const nodes0 = baseNodes(drive, plan, corners);
-  // Quasienergies (units π/T) of the loop's own U(s, T), the operator the integral closes on.
-  const twoPhases = new Float64Array(2), twoVectors = [new Float64Array(4), new Float64Array(4)];
-  const spectrum = (s: number[]) => {
-    const u = loopFloquetOperator(series, plan, s[0], s[1]);
-    let phases: ArrayLike<number>;
-    if (u.rows === 2) {
-      unitaryEigenTwo(u.re, u.im, 0, twoPhases, 0, twoVectors[0], twoVectors[1]);
-      phases = twoPhases;
-    } else phases = new UnitaryEigen(u).phases;
-    return Array.from(phases, (phi) => wrapQuasienergy(-phi / Math.PI));
-  };
-  const probes = gapLabels.map((g) => probeCut(spectrum, g, o.probeGrid, { sharpWidth: FOCUS_SPACINGS / o.initialGrid, floor: o.closingFloor / 10 }));
+  // Time-dependent segments become Magnus slices (winding-loop.ts). Their U(T) only has to stay far inside
+  // the gap, so the slicing starts loose and is tightened once the probe has measured the gap.
+  let propagator = { tolerance: DEFAULT_WINDING_PROPAGATOR_TOLERANCE, ...options.propagator };
+  let loop = prepareLoop(drive, propagator, corners);
+  let probes = gapLabels.map((g) => probeCut(loop.spectrum, g, o.probeGrid, { sharpWidth: FOCUS_SPACINGS / o.initialGrid, floor: o.closingFloor / 10 }));
+  const sliced = loop.plan.pieces.some((piece) => piece.kind === 'slice');
+  const narrowest = Math.min(...probes.map((p) => (p.minimalDistance >= o.closingFloor ? p.minimalDistance : Infinity)));
+  if (sliced && options.propagator?.tolerance === undefined && narrowest * Math.PI < GAP_OVER_TOLERANCE * propagator.tolerance) {
+    propagator = { ...propagator, tolerance: Math.max((narrowest * Math.PI) / GAP_OVER_TOLERANCE, 1e-12) };
+    loop = prepareLoop(drive, propagator, corners);
+    probes = gapLabels.map((g) => probeCut(loop.spectrum, g, o.probeGrid, { sharpWidth: FOCUS_SPACINGS / o.initialGrid, floor: o.closingFloor / 10 }));
+  }
+  const { plan, series, nodes: nodes0 } = loop;
 
   const closed = probes.map((p) => p.minimalDistance < o.closingFloor);
   const open = gapLabels.map((_, i) => i).filter((i) => !closed[i]);
@@ -181,13 +208,23 @@ export function gapWindingNumbers(drive: LatticeDrive, gapLabels: number[], opti
   const done = gapLabels.map(() => false);
   const stable = gapLabels.map(() => false);
   const notes: string[][] = gapLabels.map(() => []);
+  if (plan.pieces.some((piece) => piece.kind === 'slice')) {
+    probes.forEach((probe, i) => {
+      if (!closed[i] && probe.minimalDistance * Math.PI < GAP_OVER_TOLERANCE * propagator.tolerance) {
+        notes[i].push(
+          `the gap (${fmt(probe.minimalDistance)} units π/T) is within ${GAP_OVER_TOLERANCE}× the time-integration tolerance ${fmt(propagator.tolerance)}; tighten options.propagator.tolerance`,
+        );
+      }
+    });
+  }
   let active = gapLabels.map((_, i) => i);
   const sizes = levelSizes(o.initialGrid, o.maxGrid);
   for (let level = 0; level < sizes.length && active.length > 0; level++) {
     const n = sizes[level];
     const grid = {
       axes: [gradedAxis(n, foci1), gradedAxis(n, foci2)] as [Float64Array, Float64Array],
-      nodesPerPiece: nodes0.map((m) => m + 2 * level),
+      // Magnus slices already form a fine time grid: one more node per slice every second level.
+      nodesPerPiece: nodes0.map((m, p) => m + (plan.pieces[p].kind === 'slice' ? Math.floor(level / 2) : 2 * level)),
       stencilRadius: o.stencilRadius,
     };
     const result = windingOnGrid(plan, series, active.map((i) => gapLabels[i]), grid, sign);

@@ -85,8 +85,12 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
   const records: ModelRecord[] = [];
   const timings: Record<string, ModelTimings> = {};
   const cacheProblems: string[] = [];
+  const taken = new Set(loaded.models.map((m) => m.id));
   for (const failure of loaded.failures) {
-    const id = failureId(failure.file, failure.id);
+    let id = failureId(failure.file, failure.id);
+    // A second file claiming a used id must not overwrite that model's record.
+    for (let n = 2; taken.has(id); n++) id = `${failureId(failure.file, failure.id)}--duplicate-${n}`;
+    taken.add(id);
     if (!inShard(id, options.shard)) continue;
     records.push(invalidRecord(identity, id, failure.file, failure.diagnostics));
     timings[id] = { totalMs: 0, stages: {}, cached: false };

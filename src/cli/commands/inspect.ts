@@ -6,6 +6,7 @@ import type { ModelRecord, ModelTimings } from '../../catalogue/records/model-re
 import { inspectModel, ModelNotFoundError } from '../../catalogue/verify/inspect.ts';
 import type { Certificate } from '../../catalogue/verify/certificate.ts';
 import type { CliIO } from './verify-summary.ts';
+import { canonicalJson } from '../../catalogue/records/canonical-json.ts';
 
 export const describe = `strobe inspect <id | file> [--no-cache] [--json]
   Verifies one model and shows its quasienergy gaps, bands, invariants and the
@@ -83,7 +84,7 @@ export async function run(argv: string[], io: CliIO): Promise<number> {
   }
   try {
     const { record, timings } = await inspectModel(positional[0], { cache: !argv.includes('--no-cache') });
-    if (argv.includes('--json')) io.stdout.write(JSON.stringify(record, null, 2) + '\n');
+    if (argv.includes('--json')) io.stdout.write(canonicalJson(record));
     else io.stdout.write(formatInspection(record, timings));
     return record.status === 'verified' || record.status === 'portrait-only' || record.status === 'unsettled' ? 0 : 1;
   } catch (e) {

@@ -116,24 +116,42 @@ export function parseCheckOptions(argv: string[]): CheckOptions {
 
 const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
 
-/** Progress reporter: one rewritten line on a terminal, plain lines (one per finished model) otherwise. */
-export function progressReporter(io: CliIO): { onProgress: (e: ProgressEvent) => void; finish: () => void } {
+/**
+ * Progress reporter: on a terminal, one line rewritten in place with the model
+ * being computed, its step and the elapsed time (refreshed twice a second);
+ * otherwise one plain line per finished model, which logs read well.
+ */
+export function progressReporter(io: CliIO, refreshMs = 500): { onProgress: (e: ProgressEvent) => void; finish: () => void } {
   const tty = io.stdout.isTTY === true;
   let done = 0;
   let width = 0;
+  let current: { event: ProgressEvent; at: number } | undefined;
+  let timer: NodeJS.Timeout | undefined;
+  const render = (e: ProgressEvent, extraMs = 0) => {
+    const line = `[${done}/${e.total}] ${e.id}: ${e.step} ${seconds(e.elapsedMs + extraMs)}`;
+    io.stdout.write(`\r${line.padEnd(width)}`);
+    width = line.length;
+  };
   return {
     onProgress(e) {
       const finished = e.step === 'done' || e.step === 'cached' || e.step === 'timed-out' || e.step === 'crashed' || e.step === 'threw';
       if (finished) done++;
       if (tty) {
-        const line = `[${done}/${e.total}] ${e.id}: ${e.step} ${seconds(e.elapsedMs)}`;
-        io.stdout.write(`\r${line.padEnd(width)}`);
-        width = line.length;
+        render(e);
+        current = finished ? undefined : { event: e, at: performance.now() };
+        if (!timer && refreshMs > 0) {
+          timer = setInterval(() => {
+            if (current) render(current.event, performance.now() - current.at);
+          }, refreshMs);
+          timer.unref();
+        }
       } else if (finished) {
         io.stdout.write(`[${done}/${e.total}] ${e.id}: ${e.step === 'done' ? 'verified in' : e.step} ${e.step === 'cached' ? '(unchanged)' : seconds(e.elapsedMs)}\n`);
       }
     },
     finish() {
+      if (timer) clearInterval(timer);
+      timer = undefined;
       if (tty && width > 0) io.stdout.write(`\r${' '.repeat(width)}\r`);
     },
   };

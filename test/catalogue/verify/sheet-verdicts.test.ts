@@ -3,6 +3,7 @@ import { judgeSheet } from '../../../src/catalogue/verify/sheet-verdicts.ts';
 import { DEFAULT_POLICY } from '../../../src/catalogue/verify/policy.ts';
 import { classifySheet } from '../../../src/catalogue/verify/anomalous.ts';
 import { modelStatus } from '../../../src/catalogue/verify/status.ts';
+import { distrustOnInconsistency } from '../../../src/catalogue/verify/analyse-point.ts';
 import type { NormalizedClaim } from '../../../src/catalogue/verify/claims.ts';
 import { estimate, twoBandSheet } from './hand-portraits.ts';
 
@@ -76,5 +77,21 @@ describe('verdicts on a two-dimensional portrait', () => {
     expect(classifySheet(chernPhase)).toMatchObject({ classification: 'not-anomalous', reason: 'winding W at ε = π/T is 0' });
     const nearCritical = judgeSheet(twoBandSheet({ gap0: 0 }), [], DEFAULT_POLICY).entries;
     expect(classifySheet(nearCritical).classification).toBe('undetermined');
+  });
+});
+
+describe('invariants that contradict each other', () => {
+  it('turn every settled verdict unsettled and name the failed relation', () => {
+    // W(π) − W(0) must equal the Chern number of the band between (Rudner et al. 2013); here 1 − 1 ≠ 1.
+    const { verdicts, entries } = judgeSheet(twoBandSheet({ c: [1, -1], w: [1, 1] }), [winding(0, 1)], DEFAULT_POLICY);
+    expect(verdicts[0].outcome).toBe('confirmed');
+    distrustOnInconsistency(verdicts, entries, [
+      { name: 'winding-step:band-0', holds: false, detail: 'W(1) − W(0) = 0, C = 1' },
+      { name: 'chern-sum', holds: false, inconclusive: true, detail: 'an input was unsettled' },
+    ]);
+    expect(verdicts[0].outcome).toBe('unsettled');
+    expect(verdicts[0].message).toMatch(/cannot be trusted: computed invariants contradict each other \(winding-step:band-0: W\(1\) − W\(0\) = 0, C = 1\)/);
+    expect(verdicts[0].message).not.toMatch(/chern-sum/);
+    expect(entries.every((e) => !e.settled)).toBe(true);
   });
 });

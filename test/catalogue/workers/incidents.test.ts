@@ -46,7 +46,7 @@ describe('progress lines', () => {
   });
   it('rewrite one line on a terminal with model, step and elapsed time', () => {
     const out: string[] = [];
-    const p = progressReporter({ stdout: { write: (t: string) => out.push(t), isTTY: true }, stderr: { write: () => {} } });
+    const p = progressReporter({ stdout: { write: (t: string) => out.push(t), isTTY: true }, stderr: { write: () => {} } }, 0);
     p.onProgress(event('analysing'));
     p.onProgress(event('done'));
     p.finish();
@@ -54,5 +54,17 @@ describe('progress lines', () => {
     // The shorter line is padded to cover the previous one.
     expect(out[1]).toBe('\r' + '[1/2] m-1: done 1.5 s'.padEnd('[0/2] m-1: analysing 1.5 s'.length));
     expect(out[2]).toMatch(/^\r +\r$/);
+  });
+
+  it('refresh the elapsed time on a terminal while a model runs', async () => {
+    const out: string[] = [];
+    const p = progressReporter({ stdout: { write: (t: string) => out.push(t), isTTY: true }, stderr: { write: () => {} } }, 20);
+    p.onProgress({ id: 'slow', index: 0, total: 1, step: 'analysing', elapsedMs: 0 });
+    await new Promise((r) => setTimeout(r, 300));
+    p.finish();
+    const frames = out.filter((t) => t.includes('slow: analysing'));
+    expect(frames.length).toBeGreaterThan(2);
+    // At least 0.1 s passed between the first and the last frame (waited 300 ms).
+    expect(frames.at(-1)).not.toBe(frames[0]);
   });
 });
