@@ -7,6 +7,8 @@ export interface CommandIO {
   stderr: (text: string) => void;
   /** Working directory that relative paths are resolved against. */
   cwd: string;
+  /** True when stdout is an interactive terminal (progress lines are rewritten in place). */
+  isTerminal?: boolean;
 }
 
 export interface Command {
@@ -38,4 +40,12 @@ export function parseFlags(args: string[], known: readonly string[]): { flags: S
     } else positionals.push(arg);
   }
   return { flags, positionals };
+}
+
+/** Stream-shaped view of CommandIO, for commands written against write() streams. */
+export function asStreams(io: CommandIO): { stdout: { write(text: string): boolean; isTTY?: boolean }; stderr: { write(text: string): boolean } } {
+  return {
+    stdout: { write: (text: string) => (io.stdout(text), true), isTTY: io.isTerminal === true },
+    stderr: { write: (text: string) => (io.stderr(text), true) },
+  };
 }

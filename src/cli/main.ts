@@ -7,10 +7,11 @@ import { closestName } from '../catalogue/diagnostics.ts';
 import { checkCommand } from './commands/check.ts';
 import { helpCommand, overview } from './commands/help.ts';
 import { newCommand } from './commands/new.ts';
+import { inspectCommand, mergeCommand, sweepCommand } from './commands/verification-commands.ts';
 import { siteCommand } from './commands/site.ts';
 import { EXIT_OK, EXIT_USAGE, type Command, type CommandIO } from './command.ts';
 
-export const commands: Command[] = [checkCommand, newCommand, siteCommand];
+export const commands: Command[] = [checkCommand, inspectCommand, sweepCommand, mergeCommand, siteCommand, newCommand];
 commands.push(helpCommand(() => commands));
 
 export async function main(argv: string[], io: Partial<CommandIO> = {}): Promise<number> {
@@ -18,6 +19,7 @@ export async function main(argv: string[], io: Partial<CommandIO> = {}): Promise
     stdout: io.stdout ?? ((text) => void process.stdout.write(text)),
     stderr: io.stderr ?? ((text) => void process.stderr.write(text)),
     cwd: io.cwd ?? process.cwd(),
+    isTerminal: io.isTerminal ?? (io.stdout === undefined && process.stdout.isTTY === true),
   };
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h') {

@@ -15,9 +15,9 @@ async function run(argv: string[], cwd = process.cwd()) {
   return { code, stdout, stderr };
 }
 
-describe('strobe check', () => {
+describe('strobe check --validate-only', () => {
   it('exits 0 and prints one ✓ line per model and a total for models/', async () => {
-    const { code, stdout } = await run(['check']);
+    const { code, stdout } = await run(['check', '--validate-only']);
     expect(code).toBe(0);
     const lines = stdout.trim().split('\n');
     expect(lines.filter((l) => l.startsWith('✓ '))).toContain('✓ qwz-sheet  models/qwz-sheet.json');
@@ -25,7 +25,7 @@ describe('strobe check', () => {
   });
 
   it('exits 1 and prints located problems for an invalid file', async () => {
-    const { code, stdout } = await run(['check', 'test/fixtures/invalid/unknown-orbital.json', 'test/fixtures/valid/minimal-chain.json']);
+    const { code, stdout } = await run(['check', '--validate-only', 'test/fixtures/invalid/unknown-orbital.json', 'test/fixtures/valid/minimal-chain.json']);
     expect(code).toBe(1);
     expect(stdout).toContain('✓ minimal-chain  test/fixtures/valid/minimal-chain.json\n');
     expect(stdout).toMatch(/^✗ test\/fixtures\/invalid\/unknown-orbital\.json:\d+:\d+  \/drive\/segments\/1\/hoppings\/0\/to  no orbital "C"; orbitals are A, B  \(did you mean 'A'\?\)$/m);
@@ -33,7 +33,7 @@ describe('strobe check', () => {
   });
 
   it('--json gives a machine-readable report', async () => {
-    const { code, stdout } = await run(['check', '--json', 'test/fixtures/invalid/empty.json']);
+    const { code, stdout } = await run(['check', '--validate-only', '--json', 'test/fixtures/invalid/empty.json']);
     expect(code).toBe(1);
     const report = JSON.parse(stdout);
     expect(report.valid).toBe(false);
@@ -42,9 +42,36 @@ describe('strobe check', () => {
   });
 
   it('exits 2 on an unknown option, with a hint', async () => {
-    const { code, stderr } = await run(['check', '--jsno']);
+    const { code, stderr } = await run(['check', '--validate-only', '--jsno']);
     expect(code).toBe(2);
     expect(stderr).toBe('strobe check: unknown option --jsno\nhint: run "strobe help check" for the options\n');
+    const verifying = await run(['check', '--jsno']);
+    expect(verifying.code).toBe(2);
+    expect(verifying.stderr).toBe('strobe check: unknown option --jsno; see "strobe help check"\n');
+  });
+});
+
+describe('strobe check (verification)', () => {
+  it('reports an invalid file with file:line:column, pointer and message, and exits 1', async () => {
+    const out = mkdtempSync(path.join(tmpdir(), 'strobe-check-'));
+    const { code, stdout } = await run(['check', '--no-cache', '--workers', '0', '--out', out, 'test/fixtures/invalid/unknown-orbital.json']);
+    expect(code).toBe(1);
+    expect(stdout).toMatch(/^  test\/fixtures\/invalid\/unknown-orbital\.json:\d+:\d+  \/drive\/segments\/1\/hoppings\/0\/to  no orbital "C"; orbitals are A, B/m);
+    const record = JSON.parse(readFileSync(path.join(out, 'models', 'unknown-orbital.json'), 'utf8'));
+    expect(record.status).toBe('invalid');
+  });
+
+  it('exits 1 for a disputed model and names the likely cause; --junit writes one case per claim', async () => {
+    const out = mkdtempSync(path.join(tmpdir(), 'strobe-check-'));
+    const junit = path.join(out, 'junit.xml');
+    const { code, stdout } = await run(['check', '--no-cache', '--workers', '0', '--out', out, '--junit', junit, 'test/fixtures/verification/qwz-sign-error.json']);
+    expect(code).toBe(1);
+    expect(stdout).toMatch(/qwz-sign-error\s+disputed/);
+    expect(stdout).toContain('hint: sign differs');
+    const record = JSON.parse(readFileSync(path.join(out, 'models', 'qwz-sign-error.json'), 'utf8'));
+    const xml = readFileSync(junit, 'utf8');
+    expect((xml.match(/<testcase /g) ?? []).length).toBe(record.claims.length);
+    expect((xml.match(/<failure /g) ?? []).length).toBe(record.claims.filter((c: { outcome: string }) => c.outcome === 'contradicted').length);
   });
 });
 
@@ -84,7 +111,11 @@ describe('help and dispatch', () => {
       expect(detail.code).toBe(0);
       expect(detail.stdout).toMatch(new RegExp(`^usage: strobe ${name}`));
     }
-    expect((await run(['check', '--help'])).stdout).toMatch(/Exit codes: 0 all models valid, 1 at least one invalid, 2 usage error/);
+    expect((await run(['check', '--help'])).stdout).toMatch(/Exit codes \(with --validate-only\): 0 all models valid, 1 at least one invalid, 2 usage error/);
+    for (const name of ['inspect', 'sweep', 'merge', 'site']) {
+      expect(overview.stdout).toMatch(new RegExp(`^  ${name}\\s+\\S`, 'm'));
+      expect((await run(['help', name])).stdout).toMatch(new RegExp(`^usage: strobe ${name}`));
+    }
   });
 
   it('exits 2 for an unknown command and suggests the closest one', async () => {
@@ -95,7 +126,7 @@ describe('help and dispatch', () => {
   });
 
   it('runs as a real process through bin/strobe.mjs', async () => {
-    const { stdout } = await promisify(execFile)(process.execPath, ['bin/strobe.mjs', 'check', 'models/qwz-sheet.json']);
+    const { stdout } = await promisify(execFile)(process.execPath, ['bin/strobe.mjs', 'check', '--validate-only', 'models/qwz-sheet.json']);
     expect(stdout).toBe('✓ qwz-sheet  models/qwz-sheet.json\n1 model checked: 1 valid, 0 invalid\n');
     const failed = await promisify(execFile)(process.execPath, ['bin/strobe.mjs', 'check', 'test/fixtures/invalid/empty.json']).catch((e) => e);
     expect(failed.code).toBe(1);

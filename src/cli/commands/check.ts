@@ -1,32 +1,49 @@
-/** `strobe check`: validate model files and print one line per model. */
+/**
+ * `strobe check`: validate every model file, recompute every claim and write the
+ * results records (verification lives in verify-summary.ts and the catalogue);
+ * with --validate-only, stop after validation and print one line per model.
+ */
 import path from 'node:path';
 import { loadModels } from '../../catalogue/load.ts';
 import { formatDiagnostic } from '../../catalogue/diagnostics.ts';
-import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, parseFlags, type Command } from '../command.ts';
+import { asStreams, EXIT_FAILED, EXIT_OK, EXIT_USAGE, parseFlags, type Command } from '../command.ts';
+import { describeCheckOptions, runVerifiedCheck } from './verify-summary.ts';
 
 export const checkCommand: Command = {
   name: 'check',
-  summary: 'validate model files (schema, parameters, cross-field rules)',
-  usage: 'strobe check [--json] [paths…]',
-  help: `Validates model files and prints one line per model:
+  summary: 'validate model files and verify every claim (verdicts with certificates)',
+  usage: 'strobe check [paths…] [options]  |  strobe check --validate-only [--json] [paths…]',
+  help: `Validates model files, recomputes every claim and writes results records
+(results/models/<id>.json, results/catalogue.json) for the site. Prints progress,
+a summary table and, for each model that is not verified, what differs and why.
+
+${describeCheckOptions}
+
+With --validate-only the claims are not recomputed; one line per model:
   ✓ id  file                                        the model is valid
   ✗ file:line:column  pointer  message  (hint)      one line per problem
 
 Arguments:
   paths…     model files or folders (folders are scanned for *.json); default: models
 
-Options:
-  --json     print a machine-readable report instead of text
+Options (with --validate-only):
+  --json     print a machine-readable validation report instead of text
   --help     show this help
 
-Exit codes: 0 all models valid, 1 at least one invalid, 2 usage error.
+Exit codes (with --validate-only): 0 all models valid, 1 at least one invalid, 2 usage error.
 
 Examples:
   strobe check
-  strobe check models/qwz-sheet.json
-  strobe check --json models > report.json`,
+  strobe check --strict --junit results/junit.xml
+  strobe check --validate-only models/qwz-sheet.json
+  strobe check --validate-only --json models > report.json`,
   async run(args, io) {
-    const { flags, positionals, unknown } = parseFlags(args, ['--json', '--help']);
+    if (args.includes('--help')) {
+      io.stdout(`usage: ${this.usage}\n\n${this.help}\n`);
+      return EXIT_OK;
+    }
+    if (!args.includes('--validate-only')) return runVerifiedCheck(args, asStreams(io));
+    const { flags, positionals, unknown } = parseFlags(args, ['--json', '--help', '--validate-only']);
     if (unknown) {
       io.stderr(`strobe check: unknown option ${unknown}\nhint: run "strobe help check" for the options\n`);
       return EXIT_USAGE;
