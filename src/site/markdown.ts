@@ -10,11 +10,11 @@
 import { remark } from 'remark';
 import remarkMath from 'remark-math';
 import remarkRehype from 'remark-rehype';
-import rehypeSanitize, { defaultSchema } from 'rehype-sanitize';
+import rehypeSanitize, { defaultSchema, type Options as SanitizeSchema } from 'rehype-sanitize';
 import rehypeKatex from 'rehype-katex';
 import rehypeStringify from 'rehype-stringify';
 
-const sanitizeSchema = {
+const sanitizeSchema: SanitizeSchema = {
   ...defaultSchema,
   attributes: {
     ...defaultSchema.attributes,
@@ -26,7 +26,7 @@ const processor = remark()
   .use(remarkMath)
   .use(remarkRehype)
   .use(rehypeSanitize, sanitizeSchema)
-  .use(rehypeKatex, { throwOnError: false, strict: 'ignore' })
+  .use(rehypeKatex, { strict: 'ignore' })
   .use(rehypeStringify);
 
 /** Markdown (untrusted) → sanitised HTML with server-rendered math. Never throws for bad input. */
