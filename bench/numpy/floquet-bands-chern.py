@@ -8,33 +8,21 @@ then the Fukui-Hatsugai-Suzuki sum for each band (links by np.roll).
 """
 import numpy as np
 
+from _checkerboard import dagger, exp_from_eigh, step_hamiltonians
 from _measure import measure
 
 J, DELTA, TAU, N = np.pi / 2, 0.5, 1.0, 100
-BONDS = [(0, 0), (0, 1), (-1, 1), (-1, 0)]
-
-
-def dagger(a):
-    return np.conj(np.swapaxes(a, -1, -2))
 
 
 def work():
     s = np.arange(N) / N
     s1, s2 = (x.ravel() for x in np.meshgrid(s, s, indexing="ij"))
     k = s1.size
-    hs = []
-    for n1, n2 in BONDS:
-        h = np.zeros((k, 2, 2), complex)
-        h[:, 1, 0] = J * np.exp(-2j * np.pi * (s1 * n1 + s2 * n2))
-        h[:, 0, 1] = np.conj(h[:, 1, 0])
-        hs.append(h)
-    h = np.zeros((k, 2, 2), complex)
-    h[:, 0, 0], h[:, 1, 1] = DELTA, -DELTA
-    hs.append(h)
+    hs = step_hamiltonians(s1, s2, J, DELTA)
     u = np.broadcast_to(np.eye(2, dtype=complex), (k, 2, 2)).copy()
     for h in hs:
         w, q = np.linalg.eigh(h)
-        u = ((q * np.exp(-1j * w * TAU)[:, None, :]) @ dagger(q)) @ u
+        u = exp_from_eigh(w, q, TAU) @ u
     lam, vec = np.linalg.eig(u)
     vec = vec / np.linalg.norm(vec, axis=1, keepdims=True)
     eps = np.mod(-np.angle(lam) / np.pi + 1, 2) - 1  # units pi/T, in [-1, 1)

@@ -11,36 +11,14 @@ lie within 1e-3 of the same integer, as in the TypeScript engine.
 """
 import numpy as np
 
+from _checkerboard import dagger, exp_from_eigh, step_hamiltonians
 from _measure import measure
 
 J, DELTA, TAU = 0.4 * np.pi, 0.3, 1.0
-BONDS = [(0, 0), (0, 1), (-1, 1), (-1, 0)]
 T = 5 * TAU
 CUTS = [0.0, 1.0]
 TOL = 1e-3
 RADIUS = 4
-
-
-def step_hamiltonians(s1, s2):
-    k = s1.size
-    hs = []
-    for n1, n2 in BONDS:
-        h = np.zeros((k, 2, 2), complex)
-        h[:, 1, 0] = J * np.exp(-2j * np.pi * (s1 * n1 + s2 * n2))
-        h[:, 0, 1] = np.conj(h[:, 1, 0])
-        hs.append(h)
-    h = np.zeros((k, 2, 2), complex)
-    h[:, 0, 0], h[:, 1, 1] = DELTA, -DELTA
-    hs.append(h)
-    return hs
-
-
-def dagger(a):
-    return np.conj(np.swapaxes(a, -1, -2))
-
-
-def exp_from_eigh(w, q, t):
-    return (q * np.exp(-1j * w * t)[:, None, :]) @ dagger(q)
 
 
 def central_difference(r):
@@ -55,7 +33,7 @@ def nodes_per_step(spreads, length):
 
 def floquet(s1, s2):
     u = np.broadcast_to(np.eye(2, dtype=complex), (s1.size, 2, 2)).copy()
-    for h in step_hamiltonians(s1, s2):
+    for h in step_hamiltonians(s1, s2, J, DELTA):
         w, q = np.linalg.eigh(h)
         u = exp_from_eigh(w, q, TAU) @ u
     return u
@@ -166,7 +144,7 @@ def winding_on_grid(n, level, axes_foci):
     a1, a2 = graded_axis(n, axes_foci[0]), graded_axis(n, axes_foci[1])
     s1, s2 = (x.ravel() for x in np.meshgrid(a1, a2, indexing="ij"))
     count = s1.size
-    hs = step_hamiltonians(s1, s2)
+    hs = step_hamiltonians(s1, s2, J, DELTA)
     eig = [np.linalg.eigh(h) for h in hs]
     spreads = [float(np.max(w[:, -1] - w[:, 0])) for w, _ in eig]
     nodes = [m + 2 * level for m in nodes_per_step(spreads, T)]
