@@ -8,7 +8,7 @@ then the Fukui-Hatsugai-Suzuki sum for each band (links by np.roll).
 """
 import numpy as np
 
-from _checkerboard import dagger, exp_from_eigh, step_hamiltonians
+from _checkerboard import exp_from_eigh, step_hamiltonians
 from _measure import measure
 
 J, DELTA, TAU, N = np.pi / 2, 0.5, 1.0, 100

@@ -2,12 +2,14 @@
 
 Rudner-Lindner-Berg-Levin winding numbers in the gaps 0 and pi of the five-step
 checkerboard drive (J tau = 0.4 pi, Delta tau = 0.3, tau = 1), with the same
-discretisation as src/numerics/winding-integral.ts: central differences of
-order 8 in momentum, Gauss-Legendre nodes on each step, V = U Q_F diag(e^{i theta t/T}) Q_F^dagger,
-A_t = i(X - V^dagger H V). Every operation is batched over the whole momentum
-grid ((K, 2, 2) stacks, np.linalg.eigh / eig, matmul). Grids grow 16, 24, 36, ...
-uniformly (this twin has no probe for small gaps) until two successive levels
-lie within 1e-3 of the same integer, as in the TypeScript engine.
+method as src/numerics/winding*.ts: central differences of order 8 in momentum,
+Gauss-Legendre nodes on each step, V = U Q_F diag(e^{i theta t/T}) Q_F^dagger,
+A_t = i(X - V^dagger H V), and the same grid placement (a 24 x 24 probe of the
+distance from each cut to the spectrum, compass/Newton polishing of its local
+minima, a ladder of wrapped-Cauchy foci w, 8w, ... per axis). Every grid-wide
+operation is batched over the momentum grid ((K, 2, 2) stacks, np.linalg.eigh /
+eig, matmul). Grids grow 16, 24, 36, ... until two successive levels lie within
+1e-3 of the same integer, as in the TypeScript engine.
 """
 import numpy as np
 
