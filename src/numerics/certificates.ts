@@ -37,7 +37,7 @@ export function integerEstimate(
   stable = true,
   caveat?: string,
 ): IntegerEstimate {
-  const nearest = Math.round(raw);
+  const nearest = Math.round(raw) + 0; // + 0 turns −0 into 0
   const residual = Math.abs(raw - nearest);
   const converged = Number.isFinite(raw) && residual <= tolerance && stable && caveat === undefined;
   const estimate: IntegerEstimate = { raw, nearest, residual, tolerance, converged, grid, history };
