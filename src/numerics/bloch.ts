@@ -248,3 +248,86 @@ export function kickGenerator(drive: LatticeDrive, s: ArrayLike<number>, segment
   }
   return prepareBloch(drive, s).segmentAt(segmentIndex, segmentStartTimes(drive)[segmentIndex]);
 }
+
+/**
+ * A piecewise-constant drive compiled once for many momenta: every segment of
+ * positive duration is constant in time (kicks are evaluated at their time), so
+ * H(s) of a segment is Σ_terms amplitude·g·e^{−2πi s·n}, with the time factor g
+ * fixed. `fill` writes a segment's H(s) into a caller-owned matrix without
+ * allocating; `blocks` are the connected components of the segment's bond graph
+ * (a structural, momentum-independent block structure for the exponential).
+ * Arithmetic follows prepareBloch term by term, so both give identical matrices.
+ */
+export interface ConstantDrive {
+  readonly size: number;
+  readonly dimension: number;
+  readonly durations: readonly number[];
+  readonly blocks: readonly (readonly number[][])[];
+  fill(segmentIndex: number, s: ArrayLike<number>, out: ComplexMatrix): ComplexMatrix;
+}
+
+/** The drive compiled for momentum sweeps, or null when a segment of positive duration depends on time. */
+export function compileConstantDrive(drive: LatticeDrive): ConstantDrive | null {
+  const zero = new Array<number>(drive.dimension).fill(0);
+  const prepared = prepareBloch(drive, zero);
+  if (drive.segments.some((seg, i) => seg.duration > 0 && !prepared.isConstant(i))) return null;
+  const n = drive.states.length;
+  const omega = angularFrequency(drive);
+  const starts = segmentStartTimes(drive);
+  const segments = drive.segments.map((seg, i) => compileSegment(drive, i, seg, starts[i], zero));
+  const factors = segments.map((seg) => computeTimeFactors(seg, omega, seg.start));
+  const offsets = drive.segments.map((seg) => seg.terms.map((t) => t.offset.slice()));
+  const amplitudes = drive.segments.map((seg) => seg.terms.map((t) => [t.amplitude.re, t.amplitude.im]));
+  const blocks = segments.map((seg) => bondBlocks(n, seg.terms));
+  const dimension = drive.dimension;
+  const fill = (i: number, s: ArrayLike<number>, out: ComplexMatrix): ComplexMatrix => {
+    const seg = segments[i], g = factors[i], offs = offsets[i], amps = amplitudes[i];
+    const terms = seg.terms;
+    out.re.fill(0);
+    out.im.fill(0);
+    for (let j = 0; j < terms.length; j++) {
+      const term = terms[j];
+      const gr = g[2 * j], gi = g[2 * j + 1];
+      let arg = 0;
+      const off = offs[j];
+      for (let d = 0; d < dimension; d++) arg -= 2 * Math.PI * s[d] * off[d];
+      const cr = Math.cos(arg), ci = Math.sin(arg);
+      const ar = amps[j][0], ai = amps[j][1];
+      const cRe = ar * cr - ai * ci, cIm = ar * ci + ai * cr;
+      if (term.onsite) {
+        out.re[term.to * n + term.to] += gr * cRe;
+        continue;
+      }
+      const hr = gr * cRe - gi * cIm, hi = gr * cIm + gi * cRe;
+      const p = term.to * n + term.from, q = term.from * n + term.to;
+      out.re[p] += hr;
+      out.im[p] += hi;
+      out.re[q] += hr;
+      out.im[q] -= hi;
+    }
+    return out;
+  };
+  return { size: n, dimension, durations: drive.segments.map((seg) => seg.duration), blocks, fill };
+}
+
+/** Connected components of the graph whose edges are the hopping terms of a segment, each sorted ascending. */
+function bondBlocks(n: number, terms: CompiledTerm[]): number[][] {
+  const parent = Array.from({ length: n }, (_, i) => i);
+  const find = (i: number): number => {
+    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+    return i;
+  };
+  for (const t of terms) {
+    if (t.onsite || t.from === t.to) continue;
+    const a = find(t.from), b = find(t.to);
+    if (a !== b) parent[Math.max(a, b)] = Math.min(a, b);
+  }
+  const groups = new Map<number, number[]>();
+  for (let i = 0; i < n; i++) {
+    const root = find(i);
+    const g = groups.get(root);
+    if (g) g.push(i);
+    else groups.set(root, [i]);
+  }
+  return [...groups.values()];
+}

@@ -75,24 +75,60 @@ export function selectColumns(v: ComplexMatrix, cols: number[]): ComplexMatrix {
 
 /** det(A† B) for N × m frames A, B, as [re, im]. */
 export function overlapDeterminant(a: ComplexMatrix, b: ComplexMatrix): [number, number] {
+  overlapDeterminantInto(a, b, scratchPair);
+  return [scratchPair[0], scratchPair[1]];
+}
+
+const scratchPair = new Float64Array(2);
+
+/** det(A† B) into out[0] (re), out[1] (im); one and two columns without allocation. */
+function overlapDeterminantInto(a: ComplexMatrix, b: ComplexMatrix, out: Float64Array): void {
   const n = a.rows, m = a.cols;
+  const ar = a.re, ai = a.im, br = b.re, bi = b.im;
+  if (m === 1) {
+    let re = 0, im = 0;
+    for (let r = 0; r < n; r++) {
+      const xr = ar[r], xi = -ai[r], yr = br[r], yi = bi[r];
+      re += xr * yr - xi * yi;
+      im += xr * yi + xi * yr;
+    }
+    out[0] = re;
+    out[1] = im;
+    return;
+  }
+  if (m === 2) {
+    // O = A†B entry by entry, then det O = O₀₀O₁₁ − O₀₁O₁₀.
+    let o00r = 0, o00i = 0, o01r = 0, o01i = 0, o10r = 0, o10i = 0, o11r = 0, o11i = 0;
+    for (let r = 0; r < n; r++) {
+      const p = 2 * r;
+      const x0r = ar[p], x0i = -ai[p], x1r = ar[p + 1], x1i = -ai[p + 1];
+      const y0r = br[p], y0i = bi[p], y1r = br[p + 1], y1i = bi[p + 1];
+      o00r += x0r * y0r - x0i * y0i; o00i += x0r * y0i + x0i * y0r;
+      o01r += x0r * y1r - x0i * y1i; o01i += x0r * y1i + x0i * y1r;
+      o10r += x1r * y0r - x1i * y0i; o10i += x1r * y0i + x1i * y0r;
+      o11r += x1r * y1r - x1i * y1i; o11i += x1r * y1i + x1i * y1r;
+    }
+    out[0] = o00r * o11r - o00i * o11i - (o01r * o10r - o01i * o10i);
+    out[1] = o00r * o11i + o00i * o11r - (o01r * o10i + o01i * o10r);
+    return;
+  }
   const o = { rows: m, cols: m, re: new Float64Array(m * m), im: new Float64Array(m * m) };
   for (let i = 0; i < m; i++) {
     for (let j = 0; j < m; j++) {
       let re = 0, im = 0;
       for (let r = 0; r < n; r++) {
-        const ar = a.re[r * m + i], ai = -a.im[r * m + i];
-        const br = b.re[r * m + j], bi = b.im[r * m + j];
-        re += ar * br - ai * bi;
-        im += ar * bi + ai * br;
+        const xr = ar[r * m + i], xi = -ai[r * m + i];
+        const yr = br[r * m + j], yi = bi[r * m + j];
+        re += xr * yr - xi * yi;
+        im += xr * yi + xi * yr;
       }
       o.re[i * m + j] = re;
       o.im[i * m + j] = im;
     }
   }
-  if (m === 1) return [o.re[0], o.im[0]];
   const det = new LuDecomposition(o).determinant;
-  return [det.re, det.im];
+  out[0] = det.re;
+  out[1] = det.im;
 }
 
 function wrapAngle(x: number): number {
@@ -112,24 +148,29 @@ export interface FieldStrength {
  * FHS lattice sum on an n1 × n2 grid; `frames[i1 * n2 + i2]` is Ψ at s = (i1/n1, i2/n2).
  */
 export function fhsFieldStrength(frames: ComplexMatrix[], n1: number, n2: number): FieldStrength {
-  const index = (i1: number, i2: number): number => (((i1 % n1) + n1) % n1) * n2 + (((i2 % n2) + n2) % n2);
   const theta1 = new Float64Array(n1 * n2);
   const theta2 = new Float64Array(n1 * n2);
+  const link = new Float64Array(2);
   let minimalLinkModulus = Infinity;
   for (let i1 = 0; i1 < n1; i1++) {
+    const row = i1 * n2, nextRow = ((i1 + 1) % n1) * n2;
     for (let i2 = 0; i2 < n2; i2++) {
-      const here = frames[index(i1, i2)];
-      const [r1, m1] = overlapDeterminant(here, frames[index(i1 + 1, i2)]);
-      const [r2, m2] = overlapDeterminant(here, frames[index(i1, i2 + 1)]);
-      theta1[index(i1, i2)] = Math.atan2(m1, r1);
-      theta2[index(i1, i2)] = Math.atan2(m2, r2);
+      const here = frames[row + i2];
+      overlapDeterminantInto(here, frames[nextRow + i2], link);
+      const r1 = link[0], m1 = link[1];
+      overlapDeterminantInto(here, frames[row + ((i2 + 1) % n2)], link);
+      const r2 = link[0], m2 = link[1];
+      theta1[row + i2] = Math.atan2(m1, r1);
+      theta2[row + i2] = Math.atan2(m2, r2);
       minimalLinkModulus = Math.min(minimalLinkModulus, Math.hypot(r1, m1), Math.hypot(r2, m2));
     }
   }
   let sum = 0, maxFlux = 0;
   for (let i1 = 0; i1 < n1; i1++) {
+    const row = i1 * n2, nextRow = ((i1 + 1) % n1) * n2;
     for (let i2 = 0; i2 < n2; i2++) {
-      const f = wrapAngle(theta1[index(i1, i2)] + theta2[index(i1 + 1, i2)] - theta1[index(i1, i2 + 1)] - theta2[index(i1, i2)]);
+      const next2 = (i2 + 1) % n2;
+      const f = wrapAngle(theta1[row + i2] + theta2[nextRow + i2] - theta1[row + next2] - theta2[row + i2]);
       sum += f;
       maxFlux = Math.max(maxFlux, Math.abs(f));
     }

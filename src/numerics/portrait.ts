@@ -137,10 +137,20 @@ export interface SheetPortrait {
 export interface ChainGapReport {
   /** 0 or 1 (units π/T). */
   label: 0 | 1;
-  /** Distance from the label to the nearest bulk quasienergy over k (units π/T); the direct gap is twice this when the spectrum is symmetric. */
-  clearance: number;
-  /** Reduced momentum where the clearance is smallest. */
+  /**
+   * Minimal direct gap over k (units π/T): the smallest distance between the two
+   * eigenphases bounding the label; 2 × clearance when the gap is closed.
+   */
+  minimalGap: number;
+  /** Reduced momentum where the minimal direct gap occurs. */
   momentumAtMinimum: number;
+  /** Edges of the arc free of bulk states around the label (units π/T) and its width (the indirect gap). */
+  lower: number;
+  upper: number;
+  arcWidth: number;
+  /** Distance from the label to the nearest bulk quasienergy over k (units π/T), and where. */
+  clearance: number;
+  clearanceMomentum: number;
   /** clearance > gapTolerance. */
   open: boolean;
   /** Decay length estimate v_max / clearance of end states (cells; Infinity when closed). */
@@ -234,6 +244,11 @@ export interface ChainOpenReport {
   modes: ChainEndModes[];
   /** ‖UV − VΛ‖_F of the open-chain eigen-decomposition. */
   eigenResidual: number;
+  /** Every quasienergy of the open chain (units π/T), ascending. */
+  quasienergies: number[];
+  /** Weight of each state (order of `quasienergies`) in the first and the last `edgeCells` cells. */
+  lowEdgeWeight: number[];
+  highEdgeWeight: number[];
 }
 
 export interface ChainPortrait {
@@ -241,6 +256,8 @@ export interface ChainPortrait {
   /** Gaps at 0 and at π (in that order), with the uniform k grid size used. */
   gaps: ChainGapReport[];
   gapGrid: number;
+  /** Largest band velocity max |dε/dk| on the gap grid (units π/T per radian of k). */
+  velocity: number;
   /** Declared symmetries with residuals. */
   symmetries: ChainSymmetryReport[];
   /** Present when a chiral operator is declared or derivable (time reversal and particle–hole both declared). */
@@ -249,7 +266,8 @@ export interface ChainPortrait {
   majorana?: ChainMajoranaReport;
   /** Winding of det U(k, T): 0 for every Hamiltonian drive (a consistency check). */
   determinantWinding: IntegerEstimate;
-  openChain: ChainOpenReport;
+  /** Absent when the open chain was not asked for (sweep points map bulk quantities only). */
+  openChain?: ChainOpenReport;
   /** Bulk–end relations: |ν₀|, |ν_π| (or the Z₂ parities) against the end-mode counts. */
   consistency: ConsistencyCheck[];
   /** Largest accuracy estimate reported by the time integration (eigenphase units). */

@@ -12,11 +12,11 @@
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
 import { distance, identity, multiply, zeros } from './linalg/complex-matrix.ts';
-import { expMinusIHt, prepareExponential } from './linalg/exponential.ts';
+import { expMinusIHt, expMinusIHtBlocks, prepareExponential } from './linalg/exponential.ts';
 import type { LatticeDrive } from './drive.ts';
 import { angularFrequency } from './drive.ts';
-import type { PreparedBloch } from './bloch.ts';
-import { prepareBloch } from './bloch.ts';
+import type { ConstantDrive, PreparedBloch } from './bloch.ts';
+import { compileConstantDrive, prepareBloch } from './bloch.ts';
 import { cf4NodeTimes, magnusCF4AtNodes } from './magnus.ts';
 
 export interface PropagatorOptions {
@@ -141,6 +141,88 @@ function describeFailure(drive: LatticeDrive, segments: SegmentPlan[], maxSlices
 
 /** U(s, T), the Floquet operator, with the accuracy and slice counts behind it. */
 export function floquetOperator(drive: LatticeDrive, s: ArrayLike<number>, options: PropagatorOptions = {}): Propagation {
+  return prepareFloquet(drive, options)(s);
+}
+
+/**
+ * s ↦ U(s, T) for one drive, for sweeps over many momenta. A piecewise-constant
+ * drive is compiled once (bloch.ts compileConstantDrive): per momentum only the
+ * Bloch phases, one exponential per step on the step's fixed block structure and
+ * the products remain, in preallocated work matrices (2×2 entirely in scalars).
+ * Other drives go through the general plan. The drive must not change while the
+ * returned function is in use.
+ */
+export function prepareFloquet(drive: LatticeDrive, options: PropagatorOptions = {}): (s: ArrayLike<number>) => Propagation {
+  checkOptions(options);
+  const compiled = compileConstantDrive(drive);
+  if (compiled === null) return (s) => generalFloquet(drive, s, options);
+  checkDurations(drive);
+  return constantFloquet(compiled);
+}
+
+function checkDurations(drive: LatticeDrive): void {
+  let t = 0;
+  for (const seg of drive.segments) {
+    if (!(seg.duration >= 0) || !Number.isFinite(seg.duration)) throw new RangeError(`floquetOperator: segment duration ${seg.duration} is not a non-negative number`);
+    t += seg.duration;
+  }
+  if (Math.abs(t - drive.period) > 1e-9 * drive.period) {
+    throw new RangeError(`floquetOperator: segment durations sum to ${t}, the period is ${drive.period}`);
+  }
+}
+
+function checkMomentum(compiled: ConstantDrive, s: ArrayLike<number>): void {
+  if (s.length !== compiled.dimension) {
+    throw new RangeError(`blochHamiltonian: momentum has ${s.length} components, the lattice has dimension ${compiled.dimension}`);
+  }
+  for (let i = 0; i < s.length; i++) {
+    if (!Number.isFinite(s[i])) throw new RangeError(`blochHamiltonian: momentum component ${i} is not finite (${s[i]})`);
+  }
+}
+
+function constantFloquet(compiled: ConstantDrive): (s: ArrayLike<number>) => Propagation {
+  const n = compiled.size, count = compiled.durations.length;
+  const times = compiled.durations.map((d) => (d === 0 ? 1 : d));
+  const slices = new Array<number>(count).fill(1);
+  const h = zeros(n, n), e = zeros(n, n);
+  if (n === 2) {
+    return (s) => {
+      checkMomentum(compiled, s);
+      // u = e_last ⋯ e_1 accumulated in scalars, the same sums as multiply().
+      let u00r = 1, u00i = 0, u01r = 0, u01i = 0, u10r = 0, u10i = 0, u11r = 1, u11i = 0;
+      const er = e.re, ei = e.im;
+      for (let i = 0; i < count; i++) {
+        compiled.fill(i, s, h);
+        expMinusIHtBlocks(h, compiled.blocks[i], times[i], e);
+        const a00r = er[0] * u00r - ei[0] * u00i + (er[1] * u10r - ei[1] * u10i);
+        const a00i = er[0] * u00i + ei[0] * u00r + (er[1] * u10i + ei[1] * u10r);
+        const a01r = er[0] * u01r - ei[0] * u01i + (er[1] * u11r - ei[1] * u11i);
+        const a01i = er[0] * u01i + ei[0] * u01r + (er[1] * u11i + ei[1] * u11r);
+        const a10r = er[2] * u00r - ei[2] * u00i + (er[3] * u10r - ei[3] * u10i);
+        const a10i = er[2] * u00i + ei[2] * u00r + (er[3] * u10i + ei[3] * u10r);
+        const a11r = er[2] * u01r - ei[2] * u01i + (er[3] * u11r - ei[3] * u11i);
+        const a11i = er[2] * u01i + ei[2] * u01r + (er[3] * u11i + ei[3] * u11r);
+        u00r = a00r; u00i = a00i; u01r = a01r; u01i = a01i; u10r = a10r; u10i = a10i; u11r = a11r; u11i = a11i;
+      }
+      const operator = { rows: 2, cols: 2, re: Float64Array.of(u00r, u01r, u10r, u11r), im: Float64Array.of(u00i, u01i, u10i, u11i) };
+      return { operator, accuracy: 0, slices: slices.slice(), converged: true };
+    };
+  }
+  return (s) => {
+    checkMomentum(compiled, s);
+    let u = identity(n), spare = zeros(n, n);
+    for (let i = 0; i < count; i++) {
+      compiled.fill(i, s, h);
+      expMinusIHtBlocks(h, compiled.blocks[i], times[i], e);
+      const next = multiply(e, u, spare);
+      spare = u;
+      u = next;
+    }
+    return { operator: u, accuracy: 0, slices: slices.slice(), converged: true };
+  };
+}
+
+function generalFloquet(drive: LatticeDrive, s: ArrayLike<number>, options: PropagatorOptions): Propagation {
   const p = plan(drive, s, options);
   const n = p.bloch.size;
   let u = identity(n);

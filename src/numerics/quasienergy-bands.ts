@@ -16,8 +16,8 @@
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
 import type { LatticeDrive } from './drive.ts';
 import { UnitaryEigen } from './linalg/unitary-eigen.ts';
-import type { PropagatorOptions } from './propagator.ts';
-import { floquetOperator } from './propagator.ts';
+import type { Propagation, PropagatorOptions } from './propagator.ts';
+import { prepareFloquet } from './propagator.ts';
 
 /** The Floquet spectrum at one momentum. */
 export interface FloquetSample {
@@ -53,9 +53,26 @@ export function circularDifference(x: number, y: number): number {
 
 /** Quasienergies (units π/T, window (−1, 1], ascending) from eigenphases φ of U(T). */
 export function quasienergiesFromEigenphases(phases: Float64Array): { values: Float64Array; order: number[] } {
-  const raw = Array.from(phases, (phi) => wrapQuasienergy(-phi / Math.PI));
-  const order = raw.map((_, i) => i).sort((a, b) => raw[a] - raw[b]);
-  return { values: Float64Array.from(order, (i) => raw[i]), order };
+  const n = phases.length;
+  const raw = new Float64Array(n);
+  for (let i = 0; i < n; i++) raw[i] = wrapQuasienergy(-phases[i] / Math.PI);
+  const order = new Array<number>(n);
+  for (let i = 0; i < n; i++) order[i] = i;
+  if (n <= 16) {
+    // Insertion sort: stable, like Array.prototype.sort, and allocation-free for the few bands of a bulk model.
+    for (let i = 1; i < n; i++) {
+      const k = order[i], x = raw[k];
+      let j = i - 1;
+      while (j >= 0 && raw[order[j]] > x) {
+        order[j + 1] = order[j];
+        j--;
+      }
+      order[j + 1] = k;
+    }
+  } else order.sort((a, b) => raw[a] - raw[b]);
+  const values = new Float64Array(n);
+  for (let i = 0; i < n; i++) values[i] = raw[order[i]];
+  return { values, order };
 }
 
 export interface SamplerOptions {
@@ -64,10 +81,15 @@ export interface SamplerOptions {
   cacheLimit?: number;
 }
 
+/** Cache keyed by the momentum components as numbers (nested maps, one level per direction; 0 and −0 coincide). */
+type MomentumCache = Map<number, MomentumCache | FloquetSample>;
+
 export class FloquetSampler {
   readonly drive: LatticeDrive;
   private readonly options: SamplerOptions;
-  private readonly cache = new Map<string, FloquetSample>();
+  private cache: MomentumCache = new Map();
+  private cached = 0;
+  private propagate: ((s: ArrayLike<number>) => Propagation) | undefined;
   /** Number of Floquet operators computed (cache misses). */
   evaluations = 0;
   /** Largest propagator accuracy estimate seen (units π/T). */
@@ -81,19 +103,21 @@ export class FloquetSampler {
   }
 
   at(momentum: number[]): FloquetSample {
-    const key = momentum.join(',');
-    const hit = this.cache.get(key);
+    const hit = this.lookup(momentum);
     if (hit !== undefined) return hit;
-    const { operator, accuracy } = floquetOperator(this.drive, momentum, this.options.propagator);
+    // Compiled on first use (the drive is fixed for the sampler's lifetime, as for its cache).
+    this.propagate ??= prepareFloquet(this.drive, this.options.propagator);
+    const { operator, accuracy } = this.propagate(momentum);
     const eigen = new UnitaryEigen(operator);
     const { values, order } = quasienergiesFromEigenphases(eigen.phases);
     const n = operator.rows;
     const vectors = { rows: n, cols: n, re: new Float64Array(n * n), im: new Float64Array(n * n) };
-    for (let c = 0; c < n; c++) {
-      const src = order[c];
-      for (let r = 0; r < n; r++) {
-        vectors.re[r * n + c] = eigen.vectors.re[r * n + src];
-        vectors.im[r * n + c] = eigen.vectors.im[r * n + src];
+    const er = eigen.vectors.re, ei = eigen.vectors.im;
+    for (let r = 0; r < n; r++) {
+      const row = r * n;
+      for (let c = 0; c < n; c++) {
+        vectors.re[row + c] = er[row + order[c]];
+        vectors.im[row + c] = ei[row + order[c]];
       }
     }
     const sample: FloquetSample = {
@@ -106,9 +130,38 @@ export class FloquetSampler {
     this.evaluations++;
     this.worstPropagatorAccuracy = Math.max(this.worstPropagatorAccuracy, sample.propagatorAccuracy);
     this.worstEigenResidual = Math.max(this.worstEigenResidual, eigen.residual);
-    if (this.cache.size >= (this.options.cacheLimit ?? 1 << 16)) this.cache.clear();
-    this.cache.set(key, sample);
+    if (this.cached >= (this.options.cacheLimit ?? 1 << 16)) {
+      this.cache = new Map();
+      this.cached = 0;
+    }
+    this.store(momentum, sample);
     return sample;
+  }
+
+  private lookup(momentum: number[]): FloquetSample | undefined {
+    if (momentum.length === 0) return this.cache.get(0) as FloquetSample | undefined;
+    let level: MomentumCache | FloquetSample | undefined = this.cache;
+    for (let d = 0; d < momentum.length; d++) {
+      if (!(level instanceof Map)) return undefined;
+      level = level.get(momentum[d]);
+    }
+    return level instanceof Map ? undefined : level;
+  }
+
+  private store(momentum: number[], sample: FloquetSample): void {
+    if (momentum.length === 0) {
+      this.cache.set(0, sample);
+      this.cached++;
+      return;
+    }
+    let level = this.cache;
+    for (let d = 0; d + 1 < momentum.length; d++) {
+      let next = level.get(momentum[d]) as MomentumCache | undefined;
+      if (next === undefined) level.set(momentum[d], (next = new Map()));
+      level = next;
+    }
+    level.set(momentum[momentum.length - 1], sample);
+    this.cached++;
   }
 }
 

@@ -128,7 +128,7 @@ describe('help and dispatch', () => {
   it('runs as a real process through bin/strobe.mjs', async () => {
     const { stdout } = await promisify(execFile)(process.execPath, ['bin/strobe.mjs', 'check', '--validate-only', 'models/qwz-sheet.json']);
     expect(stdout).toBe('✓ qwz-sheet  models/qwz-sheet.json\n1 model checked: 1 valid, 0 invalid\n');
-    const failed = await promisify(execFile)(process.execPath, ['bin/strobe.mjs', 'check', 'test/fixtures/invalid/empty.json']).catch((e) => e);
+    const failed = await promisify(execFile)(process.execPath, ['bin/strobe.mjs', 'check', '--validate-only', 'test/fixtures/invalid/empty.json']).catch((e) => e);
     expect(failed.code).toBe(1);
   });
 });

@@ -10,6 +10,7 @@ import { compareCodePoints } from './canonical-json.ts';
 import { decimateRows, roundRows, roundTo, strideFor } from './decimate.ts';
 import { ANOMALOUS_DEFINITION } from '../verify/anomalous.ts';
 import { gapEvidence } from '../verify/sheet-verdicts.ts';
+import type { ChainView } from '../verify/chain-view.ts';
 import type { VerdictPolicy } from '../verify/policy.ts';
 
 export interface EngineIdentity {
@@ -68,6 +69,49 @@ export function driveSummary(drive: LatticeDrive, nambu: boolean): NonNullable<M
       terms: s.terms.length,
       driven: (s.vectorPotential ?? []).some((c) => c.harmonic !== 0) || s.terms.some((t) => t.modulation.kind === 'harmonic'),
     })),
+  };
+}
+
+/**
+ * The analysis part of a chain record. The open-chain spectrum is one row of
+ * quasienergies (units π/T, ascending) with each state's weight in the two end
+ * regions, as the spectrum plot reads it; at most 400 states are kept (every
+ * stride-th) and the end states are always among them.
+ */
+export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisRecord {
+  const spectra: AnalysisRecord['spectra'] = [];
+  if (view.openChain) {
+    const chain = view.openChain;
+    const order = chain.quasienergies.map((e, i) => [e, i] as const).sort((a, b) => a[0] - b[0]).map(([, i]) => i);
+    const stride = Math.max(1, Math.ceil(order.length / 400));
+    // States mostly in the end regions are kept whatever the stride: they are what the plot is for.
+    const kept = order.filter((i, position) => position % stride === 0 || chain.lowEdgeWeight[i] + chain.highEdgeWeight[i] >= 0.5);
+    spectra.push({
+      kind: 'open-chain',
+      finiteDirection: null,
+      width: chain.length,
+      momenta: [],
+      quasienergies: [kept.map((i) => roundTo(chain.quasienergies[i], 1e-5))],
+      lowEdgeWeight: [kept.map((i) => roundTo(chain.lowEdgeWeight[i], 1e-3))],
+      highEdgeWeight: [kept.map((i) => roundTo(chain.highEdgeWeight[i], 1e-3))],
+      stride,
+    });
+  }
+  const facts: Record<string, number> = {};
+  for (const s of view.symmetry) facts[`symmetry: ${s.name}`] = s.residual;
+  return {
+    kind: 'chain',
+    grid: [...view.grid],
+    bandPath: null,
+    gaps: view.gaps.map((g) => {
+      const ev = gapEvidence(view, g.label, policy);
+      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
+    }),
+    bands: view.bands.map((b) => ({ index: b.index, branches: b.branches, gapBelow: b.gapBelow, gapAbove: b.gapAbove, range: [b.range[0], b.range[1]] })),
+    spectra,
+    consistency: view.consistency.map((c) => ({ name: c.name, holds: c.holds, inconclusive: c.inconclusive === true, detail: c.detail })),
+    propagatorAccuracy: view.propagatorAccuracy,
+    facts,
   };
 }
 

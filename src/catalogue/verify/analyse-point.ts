@@ -5,19 +5,17 @@
  */
 import type { LoadedModel } from '../load.ts';
 import type { AnalysisRecord } from '../records/model-record.ts';
-import { sheetAnalysis } from '../records/record-builder.ts';
-import { decimateRows, roundTo } from '../records/decimate.ts';
+import { chainAnalysis, sheetAnalysis } from '../records/record-builder.ts';
 import type { AnomalousFlag } from './anomalous.ts';
 import { anomalousClaimHolds, classifyChain, classifySheet } from './anomalous.ts';
 import { emptyCertificate } from './certificate.ts';
-import type { ChainView } from './chain-view.ts';
 import { judgeChain } from './chain-verdicts.ts';
 import type { NormalizedClaim } from './claims.ts';
 import { claimedGapLabels } from './claims.ts';
 import type { AnalysisRequest, EngineSet } from './engines.ts';
 import type { VerdictPolicy } from './policy.ts';
 import type { PortraitEntry } from './sheet-verdicts.ts';
-import { gapEvidence, judgeSheet, sameLabel } from './sheet-verdicts.ts';
+import { judgeSheet, sameLabel } from './sheet-verdicts.ts';
 import type { Verdict } from './verdict.ts';
 import type { ConsistencyCheck } from '../../numerics/portrait.ts';
 
@@ -136,40 +134,4 @@ function finishAnomalousClaims(verdicts: Verdict[], claims: NormalizedClaim[], f
       verdicts.push({ ...base, outcome: 'contradicted', computed: holds, estimate: holds, message: `The phase is ${holds ? '' : 'not '}anomalous, but the file claims it ${claim.value ? 'is' : 'is not'}: ${flag.reason}.`, hint });
     }
   }
-}
-
-export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisRecord {
-  const spectra: AnalysisRecord['spectra'] = [];
-  if (view.openChain) {
-    // Sort states by quasienergy for plotting; keep at most 400 states (every stride-th).
-    const order = view.openChain.quasienergies.map((e, i) => [e, i] as const).sort((a, b) => a[0] - b[0]).map(([, i]) => i);
-    const stride = Math.max(1, Math.ceil(order.length / 400));
-    const kept = decimateRows(order, stride);
-    spectra.push({
-      kind: 'open-chain',
-      finiteDirection: null,
-      width: view.openChain.length,
-      momenta: [],
-      quasienergies: [kept.map((i) => roundTo(view.openChain!.quasienergies[i], 1e-5))],
-      lowEdgeWeight: [kept.map((i) => roundTo(view.openChain!.lowEdgeWeight[i], 1e-3))],
-      highEdgeWeight: [kept.map((i) => roundTo(view.openChain!.highEdgeWeight[i], 1e-3))],
-      stride,
-    });
-  }
-  const facts: Record<string, number> = {};
-  for (const s of view.symmetry) facts[`symmetry: ${s.name}`] = s.residual;
-  return {
-    kind: 'chain',
-    grid: [...view.grid],
-    bandPath: null,
-    gaps: view.gaps.map((g) => {
-      const ev = gapEvidence(view, g.label, policy);
-      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
-    }),
-    bands: view.bands.map((b) => ({ index: b.index, branches: b.branches, gapBelow: b.gapBelow, gapAbove: b.gapAbove, range: [b.range[0], b.range[1]] })),
-    spectra,
-    consistency: view.consistency.map((c) => ({ name: c.name, holds: c.holds, inconclusive: c.inconclusive === true, detail: c.detail })),
-    propagatorAccuracy: view.propagatorAccuracy,
-    facts,
-  };
 }

@@ -1,11 +1,12 @@
 /**
  * Runs the chain engine (analyseChain) and turns its ChainPortrait into the
- * ChainView that chain verdicts read: gaps at 0 and π/T as arcs of width twice
- * the clearance (the direct gap when chiral or particle–hole symmetry makes the
- * spectrum symmetric about the label; otherwise a lower bound), chiral
+ * ChainView that chain verdicts read: gaps at 0 and π/T with their minimal
+ * direct gap (the closest approach of the two eigenphases bounding the label)
+ * and the arc free of bulk states around the label, chiral
  * invariants ν₀ = (ν′ + ν″)/2 and ν_π = (ν′ − ν″)/2 with their frame windings
  * (Asbóth & Obuse, PRB 88, 121406(R) (2013)), class D Z₂ indices from
- * Pfaffian signs (Jiang et al., PRL 106, 220402 (2011)), and end-mode counts.
+ * Pfaffian signs (Jiang et al., PRL 106, 220402 (2011)), end-mode counts and
+ * the open-chain spectrum for plots.
  */
 import type { CompiledModel } from '../compile.ts';
 import type { IntegerEstimate } from '../../numerics/certificates.ts';
@@ -16,16 +17,12 @@ import type { AnalysisRequest } from './engines.ts';
 import type { ChainInvariant, ChainView } from './chain-view.ts';
 import { wrapLabel } from './claims.ts';
 
-/** Open-chain length used at sweep points, where end modes are not read. */
-export const SWEEP_CHAIN_CELLS = 4;
-
 export function chainOptions(request: AnalysisRequest): ChainAnalysisOptions {
   const hints = request.hints;
   const options: ChainAnalysisOptions = {};
   if (hints?.chainLength !== undefined) options.cells = hints.chainLength;
-  // Sweeps map bulk quantities only; the engine has no switch to skip the open chain, so the
-  // shortest chain it accepts keeps that stage cheap (its end-mode counts are never read then).
-  if (request.skip.has('edges')) options.cells = SWEEP_CHAIN_CELLS;
+  // Sweeps map bulk quantities only: no open chain, so no end modes and no bulk–end relations there.
+  if (request.skip.has('edges')) options.run = { openChain: false };
   if (hints?.kGrid?.[0] !== undefined) options.gapGrid = hints.kGrid[0];
   if (hints?.tolerances?.propagator !== undefined) options.propagator = { tolerance: Math.PI * hints.tolerances.propagator };
   return options;
@@ -54,15 +51,16 @@ function z2Estimate(sign: 1 | -1 | null, margin: number, tolerance: number, grid
 export function chainView(p: ChainPortrait): ChainView {
   const gaps = p.gaps.map((g) => ({
     label: g.label,
-    lower: wrapLabel(g.label - g.clearance),
-    upper: wrapLabel(g.label + g.clearance),
-    minimalGap: 2 * g.clearance,
+    lower: wrapLabel(g.lower),
+    upper: wrapLabel(g.upper),
+    minimalGap: g.minimalGap,
     momentumAtMinimum: [g.momentumAtMinimum],
     open: g.open,
-    arcWidth: 2 * g.clearance,
+    arcWidth: g.arcWidth,
   }));
-  // v_max = ξ · clearance (units π/T per radian of k); per unit of reduced momentum it is 2π times that.
-  const velocities = p.gaps.filter((g) => Number.isFinite(g.decayLengthEstimate) && g.clearance > 0).map((g) => g.decayLengthEstimate * g.clearance * 2 * Math.PI);
+  // Band velocity per unit of reduced momentum (2π per radian of k); read by the gap tolerance while a gap is open.
+  const open = p.gaps.filter((g) => g.open && g.clearance > 0);
+  const velocity = open.length > 0 ? 2 * Math.PI * Math.max(p.velocity, ...open.map((g) => g.clearance)) : undefined;
   const invariants: ChainInvariant[] = [];
   const chiralSymmetry = symmetryEntries(p.symmetries, p.chiral?.source === 'declared' ? ['chiral'] : ['time-reversal', 'particle-hole']);
   if (p.chiral?.status === 'computed') {
@@ -80,7 +78,8 @@ export function chainView(p: ChainPortrait): ChainView {
     name: (i === 0 ? 'first' : 'second') as 'first' | 'second',
     estimate: f.winding,
   }));
-  const endModes = p.openChain.modes.map((m) => {
+  const chain = p.openChain;
+  const endModes = (chain?.modes ?? []).map((m) => {
     const gap = p.gaps.find((g) => g.label === m.label);
     const decay = Math.max(m.lowDecayLength ?? 0, m.highDecayLength ?? 0) || (gap?.decayLengthEstimate ?? Infinity);
     let reason = m.reason;
@@ -89,11 +88,11 @@ export function chainView(p: ChainPortrait): ChainView {
       settled = false;
       reason = `the two ends disagree (low ${m.low}, high ${m.high})`;
     }
-    if (settled && !p.openChain.lengthSufficient) {
+    if (settled && !chain!.lengthSufficient) {
       settled = false;
-      reason = `the open chain (${p.openChain.cells} cells) is shorter than 10 decay lengths (≈ ${decay.toPrecision(3)} cells)`;
+      reason = `the open chain (${chain!.cells} cells) is shorter than 10 decay lengths (≈ ${decay.toPrecision(3)} cells)`;
     }
-    return { gap: m.label, count: settled ? m.low : null, settled, ...(reason !== undefined ? { reason } : {}), chainLength: p.openChain.cells, decayLength: decay };
+    return { gap: m.label, count: settled ? m.low : null, settled, ...(reason !== undefined ? { reason } : {}), chainLength: chain!.cells, decayLength: decay };
   });
   return {
     grid: [p.gapGrid],
@@ -102,11 +101,11 @@ export function chainView(p: ChainPortrait): ChainView {
     invariants,
     frames,
     endModes,
-    openChain: null,
+    openChain: chain ? { length: chain.cells, quasienergies: chain.quasienergies, lowEdgeWeight: chain.lowEdgeWeight, highEdgeWeight: chain.highEdgeWeight } : null,
     symmetry: symmetryEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']),
     consistency: p.consistency,
     propagatorAccuracy: p.propagatorAccuracy,
-    ...(velocities.length > 0 ? { velocity: Math.max(...velocities) } : {}),
+    ...(velocity !== undefined ? { velocity } : {}),
     timings: p.timings,
   };
 }

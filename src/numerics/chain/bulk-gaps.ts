@@ -1,17 +1,32 @@
 /**
  * Bulk quasienergy gaps of a chain at 0 and at π/T.
  *
- * The clearance of a gap is the distance (units π/T) from its label (0 or 1)
- * to the nearest bulk quasienergy over the Brillouin zone. A uniform k grid is
- * refined around its minimum by golden-section search (common practice), since
- * a closing gap first shows between grid points. With chiral or particle–hole
- * symmetry the spectrum is symmetric about the label and the direct gap is
- * twice the clearance.
+ * For the gap named by c (0 or 1, units π/T) and each momentum k, let
+ * d₊(k) be the counter-clockwise distance from c up to the nearest
+ * eigenphase and d₋(k) the distance down to the nearest one. Then
+ *  - the direct gap at k is d₊(k) + d₋(k), the distance between the two
+ *    eigenphases that bound c; its minimum over k (and where it occurs) is the
+ *    minimal direct gap;
+ *  - the free arc around c is (c − min_k d₋, c + min_k d₊), of width the
+ *    indirect gap;
+ *  - the clearance min_k min(d₊, d₋) is the distance from c to the bulk
+ *    spectrum; the gap counts as open while it exceeds the tolerance.
+ * With chiral or particle–hole symmetry the spectrum is symmetric about c and
+ * the direct gap is twice the clearance; without, they differ (a uniform
+ * onsite shift moves the clearance but not the direct gap).
+ *
+ * Each minimum is located on a uniform k grid and polished by Brent's method
+ * (golden section with parabolic steps; R. P. Brent, Algorithms for
+ * Minimization without Derivatives (1973), ch. 5; common practice) on the
+ * bracket of the two neighbouring grid points, since a closing gap first
+ * shows between grid points. The direct gap is polished at its two lowest
+ * grid minima.
  *
  * The group velocity max |dε/dk| (quasienergy bands sorted upward from the cut
  * in the larger gap) gives the decay-length estimate ξ ≈ v/clearance (cells)
  * used to size open chains.
  */
+import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
 import type { LatticeDrive } from '../drive.ts';
 import type { PropagatorOptions } from '../propagator.ts';
 import { floquetOperator } from '../propagator.ts';
@@ -20,13 +35,32 @@ import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
 export interface ChainGap {
   /** 0 or 1 (units π/T). */
   label: 0 | 1;
+  /**
+   * Minimal direct gap (units π/T): min over k of the distance between the two
+   * eigenphases bounding the label. When a bulk state reaches the label (the
+   * gap is closed) it is reported as 2 × clearance, below twice the tolerance.
+   */
+  minimalGap: number;
+  /** Reduced momentum in [0, 1) where the minimal direct gap occurs. */
+  momentumAtMinimum: number;
+  /** Edges of the arc free of bulk states around the label (units π/T, wrapped into (−1, 1]). */
+  lower: number;
+  upper: number;
+  /** Width of that arc: the indirect gap (units π/T). */
+  arcWidth: number;
   /** Distance from the label to the nearest bulk quasienergy (units π/T), and where (reduced momentum). */
   clearance: number;
-  momentumAtMinimum: number;
+  clearanceMomentum: number;
   /** clearance > gapTolerance. */
   open: boolean;
   /** Decay length estimate of end states in this gap, v_max / clearance (cells; Infinity when closed). */
   decayLengthEstimate: number;
+}
+
+/** Eigenphases φ ∈ (−π, π] of U(s, T) and the propagator's accuracy bound. */
+export interface PhaseSample {
+  phases: Float64Array;
+  accuracy: number;
 }
 
 export interface BulkGapOptions {
@@ -35,6 +69,8 @@ export interface BulkGapOptions {
   /** Clearance below this counts as closed (units π/T, default 1e-6). */
   gapTolerance?: number;
   propagator?: PropagatorOptions;
+  /** Shared Floquet operators (see floquetCache); a private cache is made when absent. */
+  cache?: FloquetCache;
 }
 
 export interface BulkGaps {
@@ -44,37 +80,179 @@ export interface BulkGaps {
   grid: number;
   /** Largest accuracy estimate reported by the propagator. */
   propagatorAccuracy: number;
+  /** Momenta at which U(k, T) was evaluated (grid and refinement). */
+  evaluations: number;
 }
 
 /** Eigenphases φ ∈ (−π, π] of U(s, T) (eigenvalues e^{iφ}); quasienergy ε = −φ/π in units π/T. */
-export function floquetPhases(drive: LatticeDrive, s: number, propagator?: PropagatorOptions): { phases: Float64Array; accuracy: number } {
+export function floquetPhases(drive: LatticeDrive, s: number, propagator?: PropagatorOptions): PhaseSample {
   const p = floquetOperator(drive, [s], propagator);
   return { phases: new UnitaryEigen(p.operator).phases, accuracy: p.accuracy };
 }
 
-function clearanceOf(phases: Float64Array, label: 0 | 1): number {
-  let c = Infinity;
-  for (const phi of phases) c = Math.min(c, label === 0 ? Math.abs(phi) / Math.PI : 1 - Math.abs(phi) / Math.PI);
-  return c;
+/**
+ * U(s, T) and its eigenphases memoised per reduced momentum (taken modulo 1,
+ * which the periodic Bloch gauge allows), so that the gap scan, its
+ * refinement and the det-winding check share Floquet operators.
+ */
+export class FloquetCache {
+  private readonly operators = new Map<number, { operator: ComplexMatrix; accuracy: number }>();
+  private readonly spectra = new Map<number, PhaseSample>();
+  /** Floquet operators computed (cache misses). */
+  evaluations = 0;
+
+  constructor(readonly drive: LatticeDrive, readonly propagator?: PropagatorOptions) {}
+
+  operator(s: number): { operator: ComplexMatrix; accuracy: number } {
+    const key = s - Math.floor(s);
+    let hit = this.operators.get(key);
+    if (hit === undefined) {
+      const p = floquetOperator(this.drive, [key], this.propagator);
+      hit = { operator: p.operator, accuracy: p.accuracy };
+      this.operators.set(key, hit);
+      this.evaluations++;
+    }
+    return hit;
+  }
+
+  phases(s: number): PhaseSample {
+    const key = s - Math.floor(s);
+    let hit = this.spectra.get(key);
+    if (hit === undefined) {
+      const { operator, accuracy } = this.operator(key);
+      hit = { phases: new UnitaryEigen(operator).phases, accuracy };
+      this.spectra.set(key, hit);
+    }
+    return hit;
+  }
 }
+
+/** Quasienergy (units π/T) of eigenphase φ. */
+const quasienergy = (phi: number): number => -phi / Math.PI;
+/** Counter-clockwise distance from c up to x on the quasienergy circle (circumference 2), in [0, 2). */
+const upFrom = (x: number, c: number): number => {
+  const d = x - c;
+  return d - 2 * Math.floor(d / 2);
+};
+
+/** d₊ and d₋: distances (units π/T) from `label` up and down to the nearest eigenphase. */
+export function boundingDistances(phases: Float64Array, label: number): { above: number; below: number } {
+  let above = Infinity, below = Infinity;
+  for (const phi of phases) {
+    const e = quasienergy(phi);
+    const up = upFrom(e, label);
+    above = Math.min(above, up);
+    below = Math.min(below, up === 0 ? 0 : 2 - up);
+  }
+  return { above, below };
+}
+
+/**
+ * Brent's minimisation of f on [a, b] to an absolute tolerance `tol` in x
+ * (golden-section steps with parabolic interpolation; Brent 1973, ch. 5).
+ */
+export function brentMinimum(f: (x: number) => number, a: number, b: number, tol: number, maxIterations = 100): { x: number; value: number } {
+  const golden = (3 - Math.sqrt(5)) / 2;
+  let x = a + golden * (b - a), w = x, v = x;
+  let fx = f(x), fw = fx, fv = fx;
+  let d = 0, e = 0;
+  for (let it = 0; it < maxIterations; it++) {
+    const mid = 0.5 * (a + b);
+    const tol2 = 2 * tol;
+    if (Math.abs(x - mid) <= tol2 - 0.5 * (b - a)) break;
+    let parabolic = false;
+    if (Math.abs(e) > tol) {
+      const r = (x - w) * (fx - fv);
+      let q = (x - v) * (fx - fw);
+      let p = (x - v) * q - (x - w) * r;
+      q = 2 * (q - r);
+      if (q > 0) p = -p;
+      q = Math.abs(q);
+      if (Math.abs(p) < Math.abs(0.5 * q * e) && p > q * (a - x) && p < q * (b - x)) {
+        e = d;
+        d = p / q;
+        const u = x + d;
+        if (u - a < tol2 || b - u < tol2) d = mid >= x ? tol : -tol;
+        parabolic = true;
+      }
+    }
+    if (!parabolic) {
+      e = x >= mid ? a - x : b - x;
+      d = golden * e;
+    }
+    const u = Math.abs(d) >= tol ? x + d : x + (d >= 0 ? tol : -tol);
+    const fu = f(u);
+    if (fu <= fx) {
+      if (u >= x) a = x;
+      else b = x;
+      v = w; fv = fw;
+      w = x; fw = fx;
+      x = u; fx = fu;
+    } else {
+      if (u < x) a = u;
+      else b = u;
+      if (fu <= fw || w === x) {
+        v = w; fv = fw;
+        w = u; fw = fu;
+      } else if (fu <= fv || v === x || v === w) {
+        v = u; fv = fu;
+      }
+    }
+  }
+  return { x, value: fx };
+}
+
+/** Absolute tolerance (reduced momentum) of the Brent polish. */
+const MOMENTUM_TOLERANCE = 1e-10;
+
+/** Indices of the local minima of a periodic sequence, lowest value first (a plateau gives its first point). */
+function localMinima(values: number[]): number[] {
+  const n = values.length;
+  const out: number[] = [];
+  for (let j = 0; j < n; j++) {
+    const prev = values[(j - 1 + n) % n], next = values[(j + 1) % n];
+    if (values[j] < prev && values[j] <= next) out.push(j);
+  }
+  if (out.length === 0) out.push(values.indexOf(Math.min(...values)));
+  return out.sort((a, b) => values[a] - values[b]);
+}
+
+/** The smallest of f over the grid minima `starts`, each polished on the bracket of its grid neighbours. */
+function polishedMinimum(f: (s: number) => number, grid: number[], n: number, starts: number[]): { s: number; value: number } {
+  let best = { s: 0, value: Infinity };
+  for (const j of starts) {
+    if (grid[j] < best.value) best = { s: j / n, value: grid[j] };
+    const r = brentMinimum(f, (j - 1) / n, (j + 1) / n, MOMENTUM_TOLERANCE);
+    if (r.value < best.value) best = { s: r.x, value: r.value };
+  }
+  return { s: best.s - Math.floor(best.s), value: best.value };
+}
+
+const wrapLabel = (x: number): number => {
+  let y = x - 2 * Math.floor((x + 1) / 2);
+  if (y <= -1) y += 2;
+  return y;
+};
 
 export function bulkGaps(drive: LatticeDrive, options: BulkGapOptions = {}): BulkGaps {
   const n = options.points ?? 128;
   const tol = options.gapTolerance ?? 1e-6;
+  const cache = options.cache ?? new FloquetCache(drive, options.propagator);
+  const before = cache.evaluations;
   let accuracy = 0;
-  const at = (s: number) => {
-    const r = floquetPhases(drive, s, options.propagator);
+  const at = (s: number): Float64Array => {
+    const r = cache.phases(s);
     accuracy = Math.max(accuracy, r.accuracy);
     return r.phases;
   };
   const samples = Array.from({ length: n }, (_, j) => at(j / n));
+  const clearanceOf = (p: Float64Array, label: 0 | 1): number => {
+    const d = boundingDistances(p, label);
+    return Math.min(d.above, d.below);
+  };
   // Bands sorted upward from the cut in the larger gap; velocity from neighbouring differences.
   const bigger: 0 | 1 = Math.min(...samples.map((p) => clearanceOf(p, 0))) >= Math.min(...samples.map((p) => clearanceOf(p, 1))) ? 0 : 1;
-  const sorted = samples.map((p) => Array.from(p, (phi) => {
-    const e = -phi / Math.PI; // units π/T
-    const d = e - bigger; // measured upward from the cut
-    return d - 2 * Math.floor(d / 2);
-  }).sort((a, b) => a - b));
+  const sorted = samples.map((p) => Array.from(p, (phi) => upFrom(quasienergy(phi), bigger)).sort((a, b) => a - b));
   let velocity = 0;
   const dk = (2 * Math.PI) / n;
   for (let j = 0; j < n; j++) {
@@ -82,34 +260,31 @@ export function bulkGaps(drive: LatticeDrive, options: BulkGapOptions = {}): Bul
     for (let m = 0; m < a.length; m++) velocity = Math.max(velocity, Math.abs(b[m] - a[m]) / dk);
   }
   const gap = (label: 0 | 1): ChainGap => {
-    let jMin = 0, cMin = Infinity;
-    samples.forEach((p, j) => {
-      const c = clearanceOf(p, label);
-      if (c < cMin) {
-        cMin = c;
-        jMin = j;
-      }
-    });
-    // Golden-section refinement on [s_{j−1}, s_{j+1}].
-    let a = (jMin - 1) / n, b = (jMin + 1) / n;
-    const g = (Math.sqrt(5) - 1) / 2;
-    let x1 = b - g * (b - a), x2 = a + g * (b - a);
-    let f1 = clearanceOf(at(x1), label), f2 = clearanceOf(at(x2), label);
-    for (let it = 0; it < 40 && b - a > 1e-12; it++) {
-      if (f1 < f2) {
-        b = x2; x2 = x1; f2 = f1; x1 = b - g * (b - a); f1 = clearanceOf(at(x1), label);
-      } else {
-        a = x1; x1 = x2; f1 = f2; x2 = a + g * (b - a); f2 = clearanceOf(at(x2), label);
-      }
-    }
-    let s = jMin / n;
-    if (Math.min(f1, f2) < cMin) {
-      cMin = Math.min(f1, f2);
-      s = f1 < f2 ? x1 : x2;
-    }
-    s -= Math.floor(s);
-    const open = cMin > tol;
-    return { label, clearance: cMin, momentumAtMinimum: s, open, decayLengthEstimate: open ? Math.max(velocity, cMin) / cMin : Infinity };
+    const above = (s: number) => boundingDistances(at(s), label).above;
+    const below = (s: number) => boundingDistances(at(s), label).below;
+    const direct = (s: number) => above(s) + below(s);
+    const gridAbove = samples.map((p) => boundingDistances(p, label).above);
+    const gridBelow = samples.map((p) => boundingDistances(p, label).below);
+    const gridDirect = gridAbove.map((x, j) => x + gridBelow[j]);
+    const up = polishedMinimum(above, gridAbove, n, localMinima(gridAbove).slice(0, 1));
+    const down = polishedMinimum(below, gridBelow, n, localMinima(gridBelow).slice(0, 1));
+    const clearance = Math.min(up.value, down.value);
+    const clearanceMomentum = up.value <= down.value ? up.s : down.s;
+    const open = clearance > tol;
+    const dg = open ? polishedMinimum(direct, gridDirect, n, localMinima(gridDirect).slice(0, 2)) : { s: clearanceMomentum, value: 2 * clearance };
+    return {
+      label,
+      minimalGap: dg.value,
+      momentumAtMinimum: dg.s,
+      lower: wrapLabel(label - down.value),
+      upper: wrapLabel(label + up.value),
+      arcWidth: up.value + down.value,
+      clearance,
+      clearanceMomentum,
+      open,
+      decayLengthEstimate: open ? Math.max(velocity, clearance) / clearance : Infinity,
+    };
   };
-  return { gaps: [gap(0), gap(1)], velocity, grid: n, propagatorAccuracy: accuracy };
+  const gaps: [ChainGap, ChainGap] = [gap(0), gap(1)];
+  return { gaps, velocity, grid: n, propagatorAccuracy: accuracy, evaluations: cache.evaluations - before };
 }

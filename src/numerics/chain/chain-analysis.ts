@@ -4,15 +4,19 @@
  * Z₂ parities, the det-winding check, open-chain end modes, and the bulk–end
  * relations between them. Every number carries the grid and tolerance it
  * rests on (src/numerics/portrait.ts documents each field).
+ *
+ * The gap scan and the det-winding check read U(k, T) from one cache
+ * (bulk-gaps.ts), so momenta they share are propagated once.
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
 import type { LatticeDrive } from '../drive.ts';
 import type { PropagatorOptions } from '../propagator.ts';
 import type { ChainChiralReport, ChainEndModes, ChainMajoranaReport, ChainPortrait, ChainSymmetryReport, ConsistencyCheck } from '../portrait.ts';
-import { bulkGaps } from './bulk-gaps.ts';
+import { LuDecomposition } from '../linalg/lu.ts';
+import { bulkGaps, FloquetCache } from './bulk-gaps.ts';
 import { chiralInvariants } from './chiral-winding.ts';
 import { majoranaInvariants } from './majorana-z2.ts';
-import { determinantWinding } from './quasienergy-winding.ts';
+import { phaseWinding } from './phase-winding.ts';
 import { defaultChainLength, openChainSpectrum } from './open-chain.ts';
 import { chiralFromTimeReversalAndParticleHole, chiralResidual, particleHoleResidual, timeReversalResidual } from './symmetry-residuals.ts';
 import type { SymmetryResidual } from './symmetry-residuals.ts';
@@ -33,6 +37,8 @@ export interface ChainAnalysisOptions {
   /** Uniform k grid of the gap scan (default 128). */
   gapGrid?: number;
   propagator?: PropagatorOptions;
+  /** Stages to run (default all): without the open chain, no end modes and no bulk–end relations are reported. */
+  run?: { openChain?: boolean };
 }
 
 export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, options: ChainAnalysisOptions = {}): ChainPortrait {
@@ -46,7 +52,8 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   };
   const tol = options.symmetryTolerance ?? 1e-10;
   const propagator = options.propagator;
-  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator }));
+  const cache = new FloquetCache(drive, propagator);
+  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator, cache }));
 
   const residuals: SymmetryResidual[] = timed('symmetries', () => {
     const out: SymmetryResidual[] = [];
@@ -64,12 +71,13 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   }
   const chiral = gamma ? timed('chiral', () => chiralReport(drive, gamma!, source, tol, propagator)) : undefined;
   const majorana = symmetries.particleHole ? timed('majorana', () => majoranaReport(drive, symmetries.particleHole!.unitary, propagator)) : undefined;
-  const det = timed('determinant-winding', () => determinantWinding(drive, { propagator }));
+  // Winding of det U(k, T) (quasienergy-winding.ts), on the operators the gap scan already computed.
+  const det = timed('determinant-winding', () => phaseWinding((s) => new LuDecomposition(cache.operator(s).operator).determinant));
 
   const length = defaultChainLength(bulk, 10, options.maxCells ?? 160);
   const cells = options.cells ?? length.cells;
-  const open = timed('open-chain', () => openChainSpectrum(drive, cells, { bulk, propagator }));
-  const modes: ChainEndModes[] = open.modes.map((m) => ({
+  const open = options.run?.openChain === false ? undefined : timed('open-chain', () => openChainSpectrum(drive, cells, { bulk, propagator }));
+  const modes: ChainEndModes[] = (open?.modes ?? []).map((m) => ({
     label: m.label,
     low: m.low,
     high: m.high,
@@ -125,13 +133,27 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
     kind: 'chain',
     gaps: bulk.gaps.map((g) => ({ ...g })),
     gapGrid: bulk.grid,
+    velocity: bulk.velocity,
     symmetries: symmetryReports,
     ...(chiral ? { chiral } : {}),
     ...(majorana ? { majorana } : {}),
     determinantWinding: det.winding,
-    openChain: { cells, edgeCells: open.edgeCells, lengthSufficient: options.cells !== undefined || length.sufficient, modes, eigenResidual: open.eigenResidual },
+    ...(open
+      ? {
+          openChain: {
+            cells,
+            edgeCells: open.edgeCells,
+            lengthSufficient: options.cells !== undefined || length.sufficient,
+            modes,
+            eigenResidual: open.eigenResidual,
+            quasienergies: open.quasienergies,
+            lowEdgeWeight: open.lowEdgeWeight,
+            highEdgeWeight: open.highEdgeWeight,
+          },
+        }
+      : {}),
     consistency,
-    propagatorAccuracy: Math.max(bulk.propagatorAccuracy, open.propagatorAccuracy),
+    propagatorAccuracy: Math.max(bulk.propagatorAccuracy, open?.propagatorAccuracy ?? 0),
     timings,
   };
 }

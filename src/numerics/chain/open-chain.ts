@@ -76,6 +76,9 @@ export interface OpenChainSpectrum {
   edgeCells: number;
   /** All quasienergies of the open chain (units π/T), ascending. */
   quasienergies: number[];
+  /** Weight of each state (in the order of `quasienergies`) in the first and the last `edgeCells` cells. */
+  lowEdgeWeight: number[];
+  highEdgeWeight: number[];
   modes: [EndModeReport, EndModeReport];
   /** Bulk decay-length estimate used for the checks (cells), the larger of the two gaps. */
   decayLengthEstimate: number;
@@ -160,10 +163,25 @@ export function openChainSpectrum(drive: LatticeDrive, cells: number, options: O
     return report;
   }) as [EndModeReport, EndModeReport];
 
+  // Every state's weight in the two end regions, states ordered by quasienergy (for plots of the spectrum).
+  const order = quasienergies.map((_, j) => j).sort((a, b) => quasienergies[a] - quasienergies[b]);
+  const endWeight = (j: number, firstCell: number): number => {
+    let w = 0;
+    for (let c = firstCell; c < firstCell + edgeCells; c++) {
+      for (let a = 0; a < orbitals; a++) {
+        const p = (c * orbitals + a) * N + j;
+        w += eig.vectors.re[p] ** 2 + eig.vectors.im[p] ** 2;
+      }
+    }
+    return w;
+  };
+
   return {
     cells,
     edgeCells,
-    quasienergies: [...quasienergies].sort((a, b) => a - b),
+    quasienergies: order.map((j) => quasienergies[j]),
+    lowEdgeWeight: order.map((j) => endWeight(j, 0)),
+    highEdgeWeight: order.map((j) => endWeight(j, cells - edgeCells)),
     modes,
     decayLengthEstimate: xi,
     eigenResidual: eig.residual,

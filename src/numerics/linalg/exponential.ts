@@ -100,6 +100,32 @@ export function connectedBlocks(h: ComplexMatrix): number[][] {
 
 type BlockApplier = (t: number, out: ComplexMatrix) => void;
 
+/**
+ * exp(−iHt) written into `out` (n×n, overwritten) for a Hermitian H whose
+ * nonzero pattern lies inside the given blocks (a partition of 0 … n−1, each
+ * sorted ascending), e.g. the bond graph of a drive step. No check of H: the
+ * caller builds it Hermitian. Blocks of one and two states allocate nothing.
+ */
+export function expMinusIHtBlocks(h: ComplexMatrix, blocks: readonly (readonly number[])[], t: number, out: ComplexMatrix): ComplexMatrix {
+  const n = h.rows;
+  out.re.fill(0);
+  out.im.fill(0);
+  for (const idx of blocks) {
+    if (idx.length === 1) {
+      const p = idx[0] * n + idx[0];
+      const e = h.re[p];
+      out.re[p] = Math.cos(e * t);
+      out.im[p] = -Math.sin(e * t);
+    } else if (idx.length === 2) {
+      const i = idx[0], j = idx[1];
+      const bRe = 0.5 * (h.re[j * n + i] + h.re[i * n + j]);
+      const bIm = 0.5 * (h.im[j * n + i] - h.im[i * n + j]);
+      exp2x2(h.re[i * n + i], h.re[j * n + j], bRe, bIm, t, out, i, j);
+    } else prepareBlock(h, idx as number[])(t, out);
+  }
+  return out;
+}
+
 function prepareBlock(h: ComplexMatrix, idx: number[]): BlockApplier {
   const n = h.rows;
   const m = idx.length;

@@ -60,6 +60,15 @@ export class UnitaryEigen {
   constructor(u: ComplexMatrix, options: UnitaryEigenOptions = {}) {
     assertUnitary('UnitaryEigen', u, options.unitarityTolerance ?? DEFAULT_UNITARITY_TOLERANCE, true);
     const n = u.rows;
+    if (n === 2) {
+      const small = twoByTwo(u);
+      if (small !== null) {
+        this.phases = small.phases;
+        this.vectors = small.vectors;
+        this.residual = small.residual;
+        return;
+      }
+    }
     let v: ComplexMatrix, uv: ComplexMatrix;
     if (n <= 2) {
       v = n === 2 ? twoByTwoVectors(u) : identity(n);
@@ -123,6 +132,70 @@ function twoByTwoVectors(u: ComplexMatrix): ComplexMatrix {
     m.im[p] = cr * i[p] + ci * r[p];
   }
   return new HermitianEigen(antiHermitianPart(m)).vectors;
+}
+
+/**
+ * The whole 2×2 decomposition in scalars (a momentum grid of a two-band model
+ * calls it 10⁴ times): the vectors of twoByTwoVectors, written out, then the
+ * Rayleigh phases, the ordering and the residual of the general path. Returns
+ * null when the two phases lie within CLUSTER_WIDTH, where the general path
+ * (cluster re-diagonalisation) takes over.
+ */
+function twoByTwo(u: ComplexMatrix): { phases: Float64Array; vectors: ComplexMatrix; residual: number } | null {
+  const r = u.re, i = u.im;
+  const detRe = r[0] * r[3] - i[0] * i[3] - (r[1] * r[2] - i[1] * i[2]);
+  const detIm = r[0] * i[3] + i[0] * r[3] - (r[1] * i[2] + i[1] * r[2]);
+  const alpha = 0.5 * Math.atan2(detIm, detRe);
+  const cr = Math.cos(alpha), ci = -Math.sin(alpha);
+  // M = e^{−iα}U; K = (M − M†)/2i, entries as in antiHermitianPart.
+  const m0r = cr * r[0] - ci * i[0], m0i = cr * i[0] + ci * r[0];
+  const m1r = cr * r[1] - ci * i[1], m1i = cr * i[1] + ci * r[1];
+  const m2r = cr * r[2] - ci * i[2], m2i = cr * i[2] + ci * r[2];
+  const m3r = cr * r[3] - ci * i[3], m3i = cr * i[3] + ci * r[3];
+  const k0 = 0.5 * (m0i + m0i), k3 = 0.5 * (m3i + m3i);
+  const k1r = 0.5 * (m1i + m2i), k1i = -0.5 * (m1r - m2r);
+  const k2r = 0.5 * (m2i + m1i), k2i = -0.5 * (m2r - m1r);
+  // Eigenvectors of K = m + h·σ (closed form of HermitianEigen for n = 2).
+  const br = 0.5 * (k2r + k1r), bi = 0.5 * (k2i - k1i);
+  const h = 0.5 * (k0 - k3);
+  const rad = Math.hypot(h, Math.hypot(br, bi));
+  let v0r: number, v0i: number, v1r: number, v1i: number, v2r: number, v2i: number, v3r: number, v3i: number;
+  if (rad === 0) {
+    v0r = 1; v0i = 0; v1r = 0; v1i = 0; v2r = 0; v2i = 0; v3r = 1; v3i = 0;
+  } else {
+    let x0r: number, x0i: number, x1r: number, x1i: number;
+    if (h >= 0) {
+      x0r = h + rad; x0i = 0; x1r = br; x1i = bi;
+    } else {
+      x0r = br; x0i = -bi; x1r = rad - h; x1i = 0;
+    }
+    const norm = Math.hypot(x0r, x0i, x1r, x1i);
+    x0r /= norm; x0i /= norm; x1r /= norm; x1i /= norm;
+    v0r = -x1r; v0i = x1i; v2r = x0r; v2i = -x0i; v1r = x0r; v1i = x0i; v3r = x1r; v3i = x1i;
+  }
+  // UV, column by column.
+  const w0r = r[0] * v0r - i[0] * v0i + (r[1] * v2r - i[1] * v2i), w0i = r[0] * v0i + i[0] * v0r + (r[1] * v2i + i[1] * v2r);
+  const w2r = r[2] * v0r - i[2] * v0i + (r[3] * v2r - i[3] * v2i), w2i = r[2] * v0i + i[2] * v0r + (r[3] * v2i + i[3] * v2r);
+  const w1r = r[0] * v1r - i[0] * v1i + (r[1] * v3r - i[1] * v3i), w1i = r[0] * v1i + i[0] * v1r + (r[1] * v3i + i[1] * v3r);
+  const w3r = r[2] * v1r - i[2] * v1i + (r[3] * v3r - i[3] * v3i), w3i = r[2] * v1i + i[2] * v1r + (r[3] * v3i + i[3] * v3r);
+  const p0 = foldPhase(Math.atan2(v0r * w0i - v0i * w0r + (v2r * w2i - v2i * w2r), v0r * w0r + v0i * w0i + (v2r * w2r + v2i * w2i)));
+  const p1 = foldPhase(Math.atan2(v1r * w1i - v1i * w1r + (v3r * w3i - v3i * w3r), v1r * w1r + v1i * w1i + (v3r * w3r + v3i * w3i)));
+  if (Math.abs(foldPhase(p1 - p0)) < CLUSTER_WIDTH) return null;
+  let res = 0;
+  for (const [vr0, vi0, vr1, vi1, ur0, ui0, ur1, ui1, p] of [
+    [v0r, v0i, v2r, v2i, w0r, w0i, w2r, w2i, p0],
+    [v1r, v1i, v3r, v3i, w1r, w1i, w3r, w3i, p1],
+  ]) {
+    const c = Math.cos(p), sn = Math.sin(p);
+    const a = ur0 - (vr0 * c - vi0 * sn), b = ui0 - (vr0 * sn + vi0 * c);
+    const d = ur1 - (vr1 * c - vi1 * sn), e = ui1 - (vr1 * sn + vi1 * c);
+    res += a * a + b * b + d * d + e * e;
+  }
+  const swap = p1 < p0;
+  const vectors = swap
+    ? { rows: 2, cols: 2, re: Float64Array.of(v1r, v0r, v3r, v2r), im: Float64Array.of(v1i, v0i, v3i, v2i) }
+    : { rows: 2, cols: 2, re: Float64Array.of(v0r, v1r, v2r, v3r), im: Float64Array.of(v0i, v1i, v2i, v3i) };
+  return { phases: swap ? Float64Array.of(p1, p0) : Float64Array.of(p0, p1), vectors, residual: Math.sqrt(res) };
 }
 
 /** K = (M − M†)/(2i), Hermitian by construction. */

@@ -56,3 +56,34 @@ export function spectrumPlot(input: SpectrumInput): string {
     `<g class="state-high-edge">${layers.high.join('')}</g>`;
   return svgDocument(frame, input.title, body);
 }
+
+export interface BandPathInput {
+  title: string;
+  /** Quasienergies (units π/T) at each point of the path. */
+  quasienergies: number[][];
+  /** Named corners: index into the path and label. */
+  corners: { index: number; label: string }[];
+  gapLabels: number[];
+}
+
+/**
+ * Bulk quasienergy bands along a path through the Brillouin zone. Drawn as dots,
+ * not lines: quasienergy is periodic, and a band leaving at π/T re-enters at −π/T.
+ */
+export function bandPathPlot(input: BandPathInput): string {
+  const last = Math.max(1, input.quasienergies.length - 1);
+  const xAxis: Axis = { label: 'path through the Brillouin zone', min: 0, max: last, ticks: input.corners.map((c) => ({ value: c.index, label: c.label })) };
+  const yAxis = quasienergyAxis();
+  const frame = makeFrame(640, 340, xAxis, yAxis);
+  const corners = input.corners
+    .map((c) => `<line x1="${f(frame.x(c.index))}" x2="${f(frame.x(c.index))}" y1="${frame.top}" y2="${frame.height - frame.bottom}" class="plot-gap-line"/>`)
+    .join('');
+  const gapLines = input.gapLabels
+    .map((g) => `<line x1="${frame.left}" x2="${frame.width - frame.right}" y1="${f(frame.y(g))}" y2="${f(frame.y(g))}" class="plot-gap-line"/>`)
+    .join('');
+  const dots: string[] = [];
+  input.quasienergies.forEach((row, i) => {
+    for (const e of row) dots.push(`<circle cx="${f(frame.x(i))}" cy="${f(frame.y(e))}" r="1.8"/>`);
+  });
+  return svgDocument(frame, input.title, drawAxes(frame, xAxis, yAxis) + corners + gapLines + `<g class="state-band">${dots.join('')}</g>`);
+}

@@ -68,10 +68,16 @@ export { fmt as formatCoordinate };
 /** The quasienergy axis in units of π/T, from −1 to 1. */
 export function quasienergyAxis(): Axis {
   return {
-    label: 'quasienergy ε (π/T)',
+    label: 'quasienergy ε',
     min: -1,
     max: 1,
-    ticks: [-1, -0.5, 0, 0.5, 1].map((value) => ({ value, label: value === 1 ? 'π' : value === -1 ? '−π' : value === 0 ? '0' : value === 0.5 ? 'π/2' : '−π/2' })),
+    ticks: [
+      { value: -1, label: '−π/T' },
+      { value: -0.5, label: '−π/2T' },
+      { value: 0, label: '0' },
+      { value: 0.5, label: 'π/2T' },
+      { value: 1, label: 'π/T' },
+    ],
   };
 }
 

@@ -13,7 +13,7 @@ describe('analyseChain', () => {
     expect(Math.abs(p.gaps[0].clearance - 0.5 / Math.PI)).toBeLessThanOrEqual(1e-9);
     expect(Math.abs(p.gaps[1].clearance - (3.5 - Math.PI) / Math.PI)).toBeLessThanOrEqual(1e-9);
     expect([Math.abs(p.chiral!.zero!.nearest), Math.abs(p.chiral!.pi!.nearest)]).toEqual([1, 1]);
-    expect(p.openChain.modes.map((m) => [m.low, m.high])).toEqual([[1, 1], [1, 1]]);
+    expect(p.openChain!.modes.map((m) => [m.low, m.high])).toEqual([[1, 1], [1, 1]]);
     expect(p.consistency.length).toBeGreaterThanOrEqual(3);
     for (const c of p.consistency) expect(c.holds, c.detail).toBe(true);
     expect(p.determinantWinding.nearest + 0).toBe(0);
@@ -24,7 +24,7 @@ describe('analyseChain', () => {
     expect(p.chiral!.source).toBe('time-reversal × particle-hole');
     expect([p.majorana!.zero, p.majorana!.pi]).toEqual([1, -1]);
     expect(Math.abs(p.chiral!.pi!.nearest)).toBe(1);
-    expect(p.openChain.modes[1].low).toBe(1);
+    expect(p.openChain!.modes[1].low).toBe(1);
     for (const c of p.consistency) expect(c.holds, c.detail).toBe(true);
     expect(p.symmetries.every((s) => s.holds)).toBe(true);
   });
