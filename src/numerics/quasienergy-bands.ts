@@ -75,6 +75,36 @@ export function quasienergiesFromEigenphases(phases: Float64Array): { values: Fl
   return { values, order };
 }
 
+/**
+ * Quasienergies ascending with the eigenvector columns permuted to match.
+ * `vectors` is consumed: its arrays are reordered in place (two bands: one
+ * comparison and at most one column swap, the common case on a 2D grid).
+ */
+function orderByQuasienergy(phases: Float64Array, vectors: ComplexMatrix): { values: Float64Array; vectors: ComplexMatrix } {
+  const n = phases.length;
+  if (n === 2) {
+    const a = wrapQuasienergy(-phases[0] / Math.PI), b = wrapQuasienergy(-phases[1] / Math.PI);
+    if (a <= b) return { values: Float64Array.of(a, b), vectors };
+    const re = vectors.re, im = vectors.im;
+    let t = re[0]; re[0] = re[1]; re[1] = t;
+    t = re[2]; re[2] = re[3]; re[3] = t;
+    t = im[0]; im[0] = im[1]; im[1] = t;
+    t = im[2]; im[2] = im[3]; im[3] = t;
+    return { values: Float64Array.of(b, a), vectors };
+  }
+  const { values, order } = quasienergiesFromEigenphases(phases);
+  const out = { rows: n, cols: n, re: new Float64Array(n * n), im: new Float64Array(n * n) };
+  const er = vectors.re, ei = vectors.im;
+  for (let r = 0; r < n; r++) {
+    const row = r * n;
+    for (let c = 0; c < n; c++) {
+      out.re[row + c] = er[row + order[c]];
+      out.im[row + c] = ei[row + order[c]];
+    }
+  }
+  return { values, vectors: out };
+}
+
 export interface SamplerOptions {
   propagator?: PropagatorOptions;
   /** Keep at most this many decompositions in the cache (default 1 << 16). */
@@ -109,17 +139,7 @@ export class FloquetSampler {
     this.propagate ??= prepareFloquet(this.drive, this.options.propagator);
     const { operator, accuracy } = this.propagate(momentum);
     const eigen = new UnitaryEigen(operator);
-    const { values, order } = quasienergiesFromEigenphases(eigen.phases);
-    const n = operator.rows;
-    const vectors = { rows: n, cols: n, re: new Float64Array(n * n), im: new Float64Array(n * n) };
-    const er = eigen.vectors.re, ei = eigen.vectors.im;
-    for (let r = 0; r < n; r++) {
-      const row = r * n;
-      for (let c = 0; c < n; c++) {
-        vectors.re[row + c] = er[row + order[c]];
-        vectors.im[row + c] = ei[row + order[c]];
-      }
-    }
+    const { values, vectors } = orderByQuasienergy(eigen.phases, eigen.vectors);
     const sample: FloquetSample = {
       momentum: momentum.slice(),
       quasienergies: values,

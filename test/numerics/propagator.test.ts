@@ -137,6 +137,42 @@ describe('floquetOperator and evolutionOperators', () => {
     expectBelow('U(T) from evolutionOperators', distance(evolutionOperators(drive, [], [2])[0], p.operator), 1e-14);
   });
 
+  it('builds Bloch steps with momentum phases and bond blocks of three states on a sheet (reference: mathjs expm)', () => {
+    // Four states; step 1 couples 0–1–2 (one block of three) across cells, a kick couples 2–3, step 2 is onsite.
+    // Bloch convention of drive.ts, written out here: H_ba += t e^{−2πi s·n}, H_ab += conj of it.
+    const r = seededRandom(62);
+    const hop = (from: number, to: number, offset: number[]): DriveTerm => ({ from, to, offset, amplitude: { re: r() - 0.5, im: r() - 0.5 }, modulation: constant });
+    const onsite = (i: number): DriveTerm => ({ from: i, to: i, offset: [0, 0], amplitude: { re: r() - 0.5, im: 0 }, modulation: constant });
+    const segs = [
+      { duration: 0.7, terms: [hop(0, 1, [1, 0]), hop(1, 2, [0, -1]), hop(2, 0, [1, 1]), onsite(3)] },
+      { duration: 0, terms: [hop(2, 3, [0, 1]), onsite(0)] },
+      { duration: 1.3, terms: [onsite(0), onsite(1), onsite(2), onsite(3)] },
+    ];
+    const drive: LatticeDrive = {
+      dimension: 2, spaceDimension: 2, latticeVectors: [[1, 0], [0, 1]], period: 2,
+      states: [0, 1, 2, 3].map((i) => ({ label: `s${i}`, position: [0.1 * i, 0], charge: 1 })), segments: segs,
+    };
+    const s = [0.137, 0.71];
+    const bloch = (terms: DriveTerm[]) => {
+      const m = zeros(4, 4);
+      for (const t of terms) {
+        if (t.from === t.to) { m.re[t.from * 5] += t.amplitude.re; continue; }
+        const arg = -2 * Math.PI * (s[0] * t.offset[0] + s[1] * t.offset[1]);
+        const hr = t.amplitude.re * Math.cos(arg) - t.amplitude.im * Math.sin(arg), hi = t.amplitude.re * Math.sin(arg) + t.amplitude.im * Math.cos(arg);
+        m.re[t.to * 4 + t.from] += hr; m.im[t.to * 4 + t.from] += hi;
+        m.re[t.from * 4 + t.to] += hr; m.im[t.from * 4 + t.to] -= hi;
+      }
+      return m;
+    };
+    const expm = (m: ComplexMatrix, t: number) => fromMathjs(math.expm(math.multiply(math.complex(0, -t), toMathjs(m)) as never) as never);
+    let ref = identity(4);
+    for (const seg of segs) ref = multiply(expm(bloch(seg.terms), seg.duration === 0 ? 1 : seg.duration), ref);
+    const p = floquetOperator(drive, s);
+    expectBelow('‖U(T) − Π exp‖_F', distance(p.operator, ref), 1e-13);
+    expect(p.slices).toEqual([1, 1, 1]);
+    expect(() => floquetOperator(drive, [0.1])).toThrow(/momentum has 1 components, the lattice has dimension 2/);
+  });
+
   it('keeps time-dependent propagators unitary and reports slices, accuracy and failure', () => {
     const drive = rotatingDrive(0.4, 3, 1);
     const p = floquetOperator(drive, [], { tolerance: 1e-9 });

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { cellWeights, ribbonSpectrum } from '../../src/numerics/ribbon.ts';
+import { cellWeights, ribbonSpectrum, staticSegmentIndex } from '../../src/numerics/ribbon.ts';
+import type { LatticeDrive } from '../../src/numerics/drive.ts';
+import { circularDifference } from '../../src/numerics/quasienergy-bands.ts';
 import { FloquetSampler } from '../../src/numerics/quasienergy-bands.ts';
 import { truncateDrive } from '../../src/numerics/supercell.ts';
 import { qwzDrive } from '../support/drives/qwz.ts';
@@ -64,5 +66,53 @@ describe('ribbonSpectrum', () => {
     expect(() => ribbonSpectrum(qwzDrive(1), { width: 4, edgeCells: 3 })).toThrow(/edge region of 3 cells does not fit twice into a ribbon of 4 cells/);
     expect(() => ribbonSpectrum(qwzDrive(1), { momenta: 1 })).toThrow(/at least 2 momenta/);
     expect(() => ribbonSpectrum(truncateDrive(qwzDrive(1), 0, 3))).toThrow(/needs a sheet/);
+  });
+});
+
+/**
+ * A static drive has U = e^{−iHT}: the eigenvectors of H with eigenphases −E T. The ribbon takes
+ * them from one Hermitian eigen-decomposition; here the same Hamiltonian split into two equal
+ * steps (U = e^{−iHT/2} e^{−iHT/2}, the same operator) goes through exponentials and the unitary
+ * eigensolver instead, and the two must agree. T = 1.5 makes the QWZ bandwidth (|E| ≤ |m| + 2 = 3)
+ * exceed 2π/T, so quasienergies fold across π/T.
+ */
+describe('ribbon spectra of static drives', () => {
+  const m = 1, period = 1.5, width = 10, momenta = 12;
+  const whole = qwzDrive(m, period);
+  const split: LatticeDrive = {
+    ...whole,
+    segments: [0, 1].map((i) => ({ label: `half ${i + 1}`, duration: period / 2, terms: whole.segments[0].terms })),
+  };
+  const fast = ribbonSpectrum(whole, { finiteDirection: 0, width, momenta });
+  const reference = ribbonSpectrum(split, { finiteDirection: 0, width, momenta });
+
+  it('take the Hermitian route only for one constant segment', () => {
+    expect(staticSegmentIndex(whole)).toBe(0);
+    expect(staticSegmentIndex(split)).toBe(-1);
+    expect(fast.route).toBe('hermitian');
+    expect(reference.route).toBe('floquet');
+  });
+
+  it('give the quasienergies and edge weights of the product of exponentials, folded into (−1, 1]', () => {
+    for (let j = 0; j < momenta; j++) {
+      const a = fast.samples[j], b = reference.samples[j];
+      for (let c = 0; c < a.quasienergies.length; c++) {
+        const e = a.quasienergies[c];
+        expect(e > -1 && e <= 1).toBe(true);
+        if (c > 0) expect(e).toBeGreaterThanOrEqual(a.quasienergies[c - 1]);
+        // Partner in the reference: nearest quasienergy on the circle.
+        let best = 0;
+        for (let d = 1; d < b.quasienergies.length; d++) if (Math.abs(circularDifference(b.quasienergies[d], e)) < Math.abs(circularDifference(b.quasienergies[best], e))) best = d;
+        expectWithin(`quasienergy ${c} at k∥ = ${fast.momenta[j]}`, circularDifference(b.quasienergies[best], e), 0, 1e-9);
+        // Weights are basis-free only for isolated states: compare those.
+        const isolated = a.quasienergies.every((x, d) => d === c || Math.abs(circularDifference(x, e)) > 1e-4);
+        if (isolated) {
+          expectWithin(`low-edge weight of state ${c}`, fast.lowEdgeWeight[j][c], reference.lowEdgeWeight[j][best], 1e-8);
+          expectWithin(`high-edge weight of state ${c}`, fast.highEdgeWeight[j][c], reference.highEdgeWeight[j][best], 1e-8);
+        }
+      }
+    }
+    expect(fast.eigenResidual).toBeLessThan(1e-10);
+    expect(fast.propagatorAccuracy).toBe(0);
   });
 });

@@ -29,7 +29,8 @@
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
 import type { LatticeDrive } from '../drive.ts';
 import type { PropagatorOptions } from '../propagator.ts';
-import { floquetOperator } from '../propagator.ts';
+import type { Propagation } from '../propagator.ts';
+import { floquetOperator, prepareFloquet } from '../propagator.ts';
 import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
 
 export interface ChainGap {
@@ -98,6 +99,7 @@ export function floquetPhases(drive: LatticeDrive, s: number, propagator?: Propa
 export class FloquetCache {
   private readonly operators = new Map<number, { operator: ComplexMatrix; accuracy: number }>();
   private readonly spectra = new Map<number, PhaseSample>();
+  private propagate: ((s: ArrayLike<number>) => Propagation) | undefined;
   /** Floquet operators computed (cache misses). */
   evaluations = 0;
 
@@ -107,7 +109,8 @@ export class FloquetCache {
     const key = s - Math.floor(s);
     let hit = this.operators.get(key);
     if (hit === undefined) {
-      const p = floquetOperator(this.drive, [key], this.propagator);
+      this.propagate ??= prepareFloquet(this.drive, this.propagator);
+      const p = this.propagate([key]);
       hit = { operator: p.operator, accuracy: p.accuracy };
       this.operators.set(key, hit);
       this.evaluations++;
@@ -120,11 +123,34 @@ export class FloquetCache {
     let hit = this.spectra.get(key);
     if (hit === undefined) {
       const { operator, accuracy } = this.operator(key);
-      hit = { phases: new UnitaryEigen(operator).phases, accuracy };
+      hit = { phases: operator.rows === 2 ? twoBandPhases(operator) : new UnitaryEigen(operator).phases, accuracy };
       this.spectra.set(key, hit);
     }
     return hit;
   }
+}
+
+/**
+ * Eigenphases of a 2×2 unitary in closed form: with e^{2iα} = det U, M = e^{−iα}U lies in
+ * SU(2), M = cos β + i sin β n̂·σ, and the eigenphases are α ± β. β is taken as
+ * atan2(|sin β n̂|, cos β) from the components of M directly, so it stays accurate to
+ * rounding near β = 0 and β = π, where the two eigenphases (nearly) meet: exactly where
+ * gap minima are measured. (The choice of α modulo π only swaps the two phases mod 2π.)
+ */
+export function twoBandPhases(u: ComplexMatrix): Float64Array {
+  const r = u.re, i = u.im;
+  const detRe = r[0] * r[3] - i[0] * i[3] - (r[1] * r[2] - i[1] * i[2]);
+  const detIm = r[0] * i[3] + i[0] * r[3] - (r[1] * i[2] + i[1] * r[2]);
+  const alpha = 0.5 * Math.atan2(detIm, detRe);
+  const cr = Math.cos(alpha), ci = -Math.sin(alpha);
+  // M = e^{−iα}U; a = (M₀₀ + conj M₁₁)/2 = cos β + i sin β n_z, b = (M₀₁ − conj M₁₀)/2 = sin β (n_y + i n_x).
+  const m = (p: number) => [cr * r[p] - ci * i[p], cr * i[p] + ci * r[p]];
+  const [m00r, m00i] = m(0), [m01r, m01i] = m(1), [m10r, m10i] = m(2), [m11r, m11i] = m(3);
+  const aRe = 0.5 * (m00r + m11r), aIm = 0.5 * (m00i - m11i);
+  const bRe = 0.5 * (m01r - m10r), bIm = 0.5 * (m01i + m10i);
+  const beta = Math.atan2(Math.sqrt(aIm * aIm + bRe * bRe + bIm * bIm), aRe);
+  const fold = (x: number) => x - 2 * Math.PI * Math.ceil((x - Math.PI) / (2 * Math.PI)); // into (−π, π]
+  return Float64Array.of(fold(alpha - beta), fold(alpha + beta));
 }
 
 /** Quasienergy (units π/T) of eigenphase φ. */
@@ -205,6 +231,9 @@ export function brentMinimum(f: (x: number) => number, a: number, b: number, tol
 /** Absolute tolerance (reduced momentum) of the Brent polish. */
 const MOMENTUM_TOLERANCE = 1e-10;
 
+/** Improvement (units π/T) a polished minimum needs over the grid value to replace it. */
+const ROUNDING_MARGIN = 1e-13;
+
 /** Indices of the local minima of a periodic sequence, lowest value first (a plateau gives its first point). */
 function localMinima(values: number[]): number[] {
   const n = values.length;
@@ -223,7 +252,8 @@ function polishedMinimum(f: (s: number) => number, grid: number[], n: number, st
   for (const j of starts) {
     if (grid[j] < best.value) best = { s: j / n, value: grid[j] };
     const r = brentMinimum(f, (j - 1) / n, (j + 1) / n, MOMENTUM_TOLERANCE);
-    if (r.value < best.value) best = { s: r.x, value: r.value };
+    // A polished point must beat the grid by more than rounding (a minimum on a grid point stays there).
+    if (r.value < best.value - ROUNDING_MARGIN) best = { s: r.x, value: r.value };
   }
   return { s: best.s - Math.floor(best.s), value: best.value };
 }

@@ -250,6 +250,13 @@ export function firstNonFinite(a: ComplexMatrix): [number, number] | undefined {
 
 /** Largest modulus of the entries (the max norm). */
 export function maxAbs(a: ComplexMatrix): number {
+  // Largest squared modulus first (no square root per entry); moduli directly when squares under- or overflow.
+  let m2 = 0;
+  for (let p = 0; p < a.re.length; p++) {
+    const v2 = a.re[p] * a.re[p] + a.im[p] * a.im[p];
+    if (v2 > m2) m2 = v2;
+  }
+  if (m2 > 1e-290 && m2 < 1e290) return Math.sqrt(m2);
   let m = 0;
   for (let p = 0; p < a.re.length; p++) {
     const v = Math.hypot(a.re[p], a.im[p]);

@@ -30,14 +30,28 @@ export class LuDecomposition {
     let detRe = 1, detIm = 0;
     let smallest = Infinity;
     for (let k = 0; k < n; k++) {
-      let p = k, best = -1;
+      // Pivot by squared modulus (same order as the modulus, without a square root per candidate).
+      let p = k, best2 = -1;
       for (let i = k; i < n; i++) {
-        const v = Math.hypot(r[i * n + k], im[i * n + k]);
-        if (v > best) {
-          best = v;
+        const x = r[i * n + k], y = im[i * n + k];
+        const v2 = x * x + y * y;
+        if (v2 > best2) {
+          best2 = v2;
           p = i;
         }
       }
+      if (!(best2 > 1e-290 && best2 < 1e290)) {
+        // Squares under- or overflow: compare the moduli themselves.
+        let bestAbs = -1;
+        for (let i = k; i < n; i++) {
+          const v = Math.hypot(r[i * n + k], im[i * n + k]);
+          if (v > bestAbs) {
+            bestAbs = v;
+            p = i;
+          }
+        }
+      }
+      const best = Math.hypot(r[p * n + k], im[p * n + k]);
       if (p !== k) {
         for (let j = 0; j < n; j++) {
           const s = k * n + j, t = p * n + j;

@@ -7,16 +7,20 @@
  * cubic convergence in practice.
  *
  * Layout: `d` holds the diagonal (n entries), `e[i]` couples i and i+1 (n entries,
- * e[n−1] ignored). Rotations are accumulated into `zt`, which stores eigenvector
- * j as ROW j (zt[j·n + k] = component k), so each rotation touches two contiguous
- * rows. On return `d` is sorted ascending and the rows of `zt` follow.
+ * e[n−1] ignored). Rotations are accumulated into `z`, row-major n×n with the
+ * eigenvectors as COLUMNS (z[k·n + j] = component k of eigenvector j). The
+ * rotations of one QL sweep are recorded first and then applied row by row of
+ * z, carrying one value from rotation to rotation: each entry is read and
+ * written once per sweep, with stride 1. On return `d` is sorted ascending and
+ * the columns of `z` follow.
  */
 export const MAX_QL_ITERATIONS_PER_EIGENVALUE = 60;
 
 
-export function tridiagonalQl(d: Float64Array, e: Float64Array, zt: Float64Array | null): void {
+export function tridiagonalQl(d: Float64Array, e: Float64Array, z: Float64Array | null): void {
   const n = d.length;
   if (n === 0) return;
+  const cs = new Float64Array(n), sn = new Float64Array(n);
   e[n - 1] = 0;
   const eps = 2 ** -52;
   let f = 0;
@@ -61,13 +65,42 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, zt: Float64Array
           c = p / r;
           p = c * d[i] - s * g;
           d[i + 1] = h + s * (c * g + s * d[i]);
-          if (zt !== null) {
-            const ri = i * n, rj = (i + 1) * n;
-            for (let k = 0; k < n; k++) {
-              const zk1 = zt[rj + k], zk = zt[ri + k];
-              zt[rj + k] = s * zk + c * zk1;
-              zt[ri + k] = c * zk - s * zk1;
+          cs[i] = c;
+          sn[i] = s;
+        }
+        if (z !== null) {
+          // Rotation i mixes columns i and i+1: (z_i, z_{i+1}) ← (c z_i − s z_{i+1}, s z_i + c z_{i+1}), for i = m−1 … l.
+          // Four rows at a time: four independent carry chains keep the floating-point units busy.
+          let k = 0;
+          for (; k + 3 < n; k += 4) {
+            const r0 = k * n, r1 = r0 + n, r2 = r1 + n, r3 = r2 + n;
+            let c0 = z[r0 + m], c1 = z[r1 + m], c2 = z[r2 + m], c3 = z[r3 + m];
+            for (let i = m - 1; i >= l; i--) {
+              const ci = cs[i], si = sn[i];
+              const a0 = z[r0 + i], a1 = z[r1 + i], a2 = z[r2 + i], a3 = z[r3 + i];
+              z[r0 + i + 1] = si * a0 + ci * c0;
+              z[r1 + i + 1] = si * a1 + ci * c1;
+              z[r2 + i + 1] = si * a2 + ci * c2;
+              z[r3 + i + 1] = si * a3 + ci * c3;
+              c0 = ci * a0 - si * c0;
+              c1 = ci * a1 - si * c1;
+              c2 = ci * a2 - si * c2;
+              c3 = ci * a3 - si * c3;
             }
+            z[r0 + l] = c0;
+            z[r1 + l] = c1;
+            z[r2 + l] = c2;
+            z[r3 + l] = c3;
+          }
+          for (; k < n; k++) {
+            const row = k * n;
+            let carry = z[row + m];
+            for (let i = m - 1; i >= l; i--) {
+              const zi = z[row + i], ci = cs[i], si = sn[i];
+              z[row + i + 1] = si * zi + ci * carry;
+              carry = ci * zi - si * carry;
+            }
+            z[row + l] = carry;
           }
         }
         p = (-s * s2 * c3 * el1 * e[l]) / dl1;
@@ -78,26 +111,16 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, zt: Float64Array
     d[l] += f;
     e[l] = 0;
   }
-  // Selection sort, ascending; swaps whole rows of zt.
-  for (let i = 0; i < n - 1; i++) {
-    let k = i;
-    let p = d[i];
-    for (let j = i + 1; j < n; j++) {
-      if (d[j] < p) {
-        k = j;
-        p = d[j];
-      }
-    }
-    if (k !== i) {
-      d[k] = d[i];
-      d[i] = p;
-      if (zt !== null) {
-        for (let c = 0; c < n; c++) {
-          const t = zt[i * n + c];
-          zt[i * n + c] = zt[k * n + c];
-          zt[k * n + c] = t;
-        }
-      }
+  // Ascending order (stable), then the columns of z permuted to match.
+  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => d[a] - d[b]);
+  const sorted = Float64Array.from(order, (i) => d[i]);
+  d.set(sorted);
+  if (z !== null) {
+    const tmp = new Float64Array(n);
+    for (let k = 0; k < n; k++) {
+      const row = k * n;
+      for (let j = 0; j < n; j++) tmp[j] = z[row + order[j]];
+      z.set(tmp, row);
     }
   }
 }

@@ -58,7 +58,10 @@ export class UnitaryEigen {
   readonly residual: number;
 
   constructor(u: ComplexMatrix, options: UnitaryEigenOptions = {}) {
-    assertUnitary('UnitaryEigen', u, options.unitarityTolerance ?? DEFAULT_UNITARITY_TOLERANCE, true);
+    const tolerance = options.unitarityTolerance ?? DEFAULT_UNITARITY_TOLERANCE;
+    // 2×2: the exact defect costs less than the probes; anything doubtful goes through the full check and its message.
+    const quick = u.rows === 2 && u.cols === 2 && unitarityDefect2(u) <= tolerance * Math.SQRT2;
+    if (!quick) assertUnitary('UnitaryEigen', u, tolerance, true);
     const n = u.rows;
     if (n === 2) {
       const small = twoByTwo(u);
@@ -158,7 +161,7 @@ function twoByTwo(u: ComplexMatrix): { phases: Float64Array; vectors: ComplexMat
   // Eigenvectors of K = m + h·σ (closed form of HermitianEigen for n = 2).
   const br = 0.5 * (k2r + k1r), bi = 0.5 * (k2i - k1i);
   const h = 0.5 * (k0 - k3);
-  const rad = Math.hypot(h, Math.hypot(br, bi));
+  const rad = Math.sqrt(h * h + (br * br + bi * bi));
   let v0r: number, v0i: number, v1r: number, v1i: number, v2r: number, v2i: number, v3r: number, v3i: number;
   if (rad === 0) {
     v0r = 1; v0i = 0; v1r = 0; v1i = 0; v2r = 0; v2i = 0; v3r = 1; v3i = 0;
@@ -169,7 +172,7 @@ function twoByTwo(u: ComplexMatrix): { phases: Float64Array; vectors: ComplexMat
     } else {
       x0r = br; x0i = -bi; x1r = rad - h; x1i = 0;
     }
-    const norm = Math.hypot(x0r, x0i, x1r, x1i);
+    const norm = Math.sqrt(x0r * x0r + x0i * x0i + (x1r * x1r + x1i * x1i));
     x0r /= norm; x0i /= norm; x1r /= norm; x1i /= norm;
     v0r = -x1r; v0i = x1i; v2r = x0r; v2i = -x0i; v1r = x0r; v1i = x0i; v3r = x1r; v3i = x1i;
   }
@@ -181,21 +184,31 @@ function twoByTwo(u: ComplexMatrix): { phases: Float64Array; vectors: ComplexMat
   const p0 = foldPhase(Math.atan2(v0r * w0i - v0i * w0r + (v2r * w2i - v2i * w2r), v0r * w0r + v0i * w0i + (v2r * w2r + v2i * w2i)));
   const p1 = foldPhase(Math.atan2(v1r * w1i - v1i * w1r + (v3r * w3i - v3i * w3r), v1r * w1r + v1i * w1i + (v3r * w3r + v3i * w3i)));
   if (Math.abs(foldPhase(p1 - p0)) < CLUSTER_WIDTH) return null;
-  let res = 0;
-  for (const [vr0, vi0, vr1, vi1, ur0, ui0, ur1, ui1, p] of [
-    [v0r, v0i, v2r, v2i, w0r, w0i, w2r, w2i, p0],
-    [v1r, v1i, v3r, v3i, w1r, w1i, w3r, w3i, p1],
-  ]) {
-    const c = Math.cos(p), sn = Math.sin(p);
-    const a = ur0 - (vr0 * c - vi0 * sn), b = ui0 - (vr0 * sn + vi0 * c);
-    const d = ur1 - (vr1 * c - vi1 * sn), e = ui1 - (vr1 * sn + vi1 * c);
-    res += a * a + b * b + d * d + e * e;
-  }
+  const res = columnResidual2(v0r, v0i, v2r, v2i, w0r, w0i, w2r, w2i, p0) + columnResidual2(v1r, v1i, v3r, v3i, w1r, w1i, w3r, w3i, p1);
   const swap = p1 < p0;
   const vectors = swap
     ? { rows: 2, cols: 2, re: Float64Array.of(v1r, v0r, v3r, v2r), im: Float64Array.of(v1i, v0i, v3i, v2i) }
     : { rows: 2, cols: 2, re: Float64Array.of(v0r, v1r, v2r, v3r), im: Float64Array.of(v0i, v1i, v2i, v3i) };
   return { phases: swap ? Float64Array.of(p1, p0) : Float64Array.of(p0, p1), vectors, residual: Math.sqrt(res) };
+}
+
+/** ‖Uv − e^{iφ}v‖² for one column (v₀, v₁) with Uv = (w₀, w₁). */
+function columnResidual2(v0r: number, v0i: number, v1r: number, v1i: number, w0r: number, w0i: number, w1r: number, w1i: number, phase: number): number {
+  const c = Math.cos(phase), s = Math.sin(phase);
+  const a = w0r - (v0r * c - v0i * s), b = w0i - (v0r * s + v0i * c);
+  const d = w1r - (v1r * c - v1i * s), e = w1i - (v1r * s + v1i * c);
+  return a * a + b * b + (d * d + e * e);
+}
+
+/** ‖U†U − 1‖_F of a 2×2 matrix in scalars (NaN for non-finite entries). */
+function unitarityDefect2(u: ComplexMatrix): number {
+  const r = u.re, i = u.im;
+  const g00 = r[0] * r[0] + i[0] * i[0] + r[2] * r[2] + i[2] * i[2] - 1;
+  const g11 = r[1] * r[1] + i[1] * i[1] + r[3] * r[3] + i[3] * i[3] - 1;
+  // (U†U)₀₁ = conj(U₀₀)U₀₁ + conj(U₁₀)U₁₁
+  const g01r = r[0] * r[1] + i[0] * i[1] + r[2] * r[3] + i[2] * i[3];
+  const g01i = r[0] * i[1] - i[0] * r[1] + r[2] * i[3] - i[2] * r[3];
+  return Math.sqrt(g00 * g00 + g11 * g11 + 2 * (g01r * g01r + g01i * g01i));
 }
 
 /** K = (M − M†)/(2i), Hermitian by construction. */

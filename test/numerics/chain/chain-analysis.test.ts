@@ -28,4 +28,32 @@ describe('analyseChain', () => {
     for (const c of p.consistency) expect(c.holds, c.detail).toBe(true);
     expect(p.symmetries.every((s) => s.holds)).toBe(true);
   });
+
+  it('reports the whole open-chain spectrum with end weights; the end states are the window states the counts rest on', () => {
+    const cells = 40;
+    const p = analyseChain(twoStepChain(1.5, 2.0), { chiral: fromArrays([[1, 0], [0, -1]]) }, { cells });
+    const open = p.openChain!;
+    expect(open.quasienergies).toHaveLength(2 * cells);
+    for (let i = 1; i < open.quasienergies.length; i++) expect(open.quasienergies[i]).toBeGreaterThanOrEqual(open.quasienergies[i - 1]);
+    // Weights are probabilities of disjoint regions of a normalised state.
+    open.quasienergies.forEach((_, i) => expect(open.lowEdgeWeight[i] + open.highEdgeWeight[i]).toBeLessThanOrEqual(1 + 1e-12));
+    for (const mode of open.modes) {
+      const inside = open.quasienergies.map((e, i) => i).filter((i) => mode.quasienergies.includes(open.quasienergies[i]));
+      expect(inside).toHaveLength(mode.quasienergies.length);
+      const low = inside.reduce((s, i) => s + open.lowEdgeWeight[i], 0), high = inside.reduce((s, i) => s + open.highEdgeWeight[i], 0);
+      expect(Math.abs(low - mode.lowWeight)).toBeLessThanOrEqual(1e-12);
+      expect(Math.abs(high - mode.highWeight)).toBeLessThanOrEqual(1e-12);
+    }
+  });
+
+  it('without the open chain (sweep points) reports gaps and invariants but no end modes or bulk–end relations', () => {
+    const gamma = fromArrays([[1, 0], [0, -1]]);
+    const full = analyseChain(twoStepChain(1.5, 2.0), { chiral: gamma });
+    const bulk = analyseChain(twoStepChain(1.5, 2.0), { chiral: gamma }, { run: { openChain: false } });
+    expect(bulk.openChain).toBeUndefined();
+    expect(bulk.timings['open-chain']).toBeUndefined();
+    expect(bulk.consistency.some((c) => c.name.startsWith('bulk–end'))).toBe(false);
+    expect(bulk.gaps).toEqual(full.gaps);
+    expect([bulk.chiral!.zero!.nearest, bulk.chiral!.pi!.nearest]).toEqual([full.chiral!.zero!.nearest, full.chiral!.pi!.nearest]);
+  });
 });
