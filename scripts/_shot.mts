@@ -9,7 +9,7 @@ const page = await ctx.newPage();
 await page.setViewportSize({ width: 1280, height: 900 });
 for (const [path, name, selector] of process.argv.slice(2).map((a) => a.split('='))) {
   await page.goto(server.url + path);
-  if (selector) await page.locator(selector).first().screenshot({ path: `/tmp/${name}.png` });
+  if (selector) await page.locator(selector).last().screenshot({ path: `/tmp/${name}.png` });
   else await page.screenshot({ path: `/tmp/${name}.png`, fullPage: true });
 }
 await ctx.close(); await server.close();

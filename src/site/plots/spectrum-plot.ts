@@ -19,11 +19,20 @@ export interface SpectrumInput {
   edgeThreshold?: number;
 }
 
-/** Classification used for colour: 'low', 'high' or 'bulk'. */
-export function edgeClass(low: number, high: number, threshold: number): 'low' | 'high' | 'bulk' {
-  if (low >= threshold && low >= high) return 'low';
-  if (high >= threshold) return 'high';
-  return 'bulk';
+export type EdgeClass = 'low' | 'high' | 'both' | 'bulk';
+
+/**
+ * Classification used for colour. A state whose weight on the two edge regions
+ * together reaches the threshold is an edge state; it belongs to one edge when
+ * that edge holds at least three quarters of it, else to both (degenerate end
+ * states of the two ends mix arbitrarily, so only their sum is meaningful).
+ */
+export function edgeClass(low: number, high: number, threshold: number): EdgeClass {
+  const edge = low + high;
+  if (edge < threshold) return 'bulk';
+  if (low >= 0.75 * edge) return 'low';
+  if (high >= 0.75 * edge) return 'high';
+  return 'both';
 }
 
 export function spectrumPlot(input: SpectrumInput): string {
@@ -35,7 +44,7 @@ export function spectrumPlot(input: SpectrumInput): string {
     : momentumAxis('momentum along the edge k∥ (reduced)');
   const yAxis = quasienergyAxis();
   const frame = makeFrame(640, 380, xAxis, yAxis);
-  const layers: Record<'bulk' | 'low' | 'high', string[]> = { bulk: [], low: [], high: [] };
+  const layers: Record<EdgeClass, string[]> = { bulk: [], low: [], high: [], both: [] };
   for (let i = 0; i < input.quasienergies.length; i++) {
     const row = input.quasienergies[i];
     for (let n = 0; n < row.length; n++) {
@@ -53,7 +62,8 @@ export function spectrumPlot(input: SpectrumInput): string {
     gapLines +
     `<g class="state-bulk">${layers.bulk.join('')}</g>` +
     `<g class="state-low-edge">${layers.low.join('')}</g>` +
-    `<g class="state-high-edge">${layers.high.join('')}</g>`;
+    `<g class="state-high-edge">${layers.high.join('')}</g>` +
+    `<g class="state-both-edges">${layers.both.join('')}</g>`;
   return svgDocument(frame, input.title, body);
 }
 
