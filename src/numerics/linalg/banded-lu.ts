@@ -85,8 +85,8 @@ export class BandedLu {
       if (pr === 0 && pi === 0) {
         if (pivotFloor > 0) { pr = pivotFloor; re[ok + k] = pr; }
         else { this.singular = true; continue; }
-      } else if (pivotFloor > 0 && Math.hypot(pr, pi) < pivotFloor) {
-        const s = pivotFloor / Math.hypot(pr, pi);
+      } else if (pivotFloor > 0 && pr * pr + pi * pi < pivotFloor * pivotFloor) {
+        const s = pivotFloor / Math.sqrt(pr * pr + pi * pi);
         pr *= s; pi *= s;
         re[ok + k] = pr; im[ok + k] = pi;
       }

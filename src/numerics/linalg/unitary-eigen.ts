@@ -30,6 +30,8 @@ import { identity, multiply, zeros } from './complex-matrix.ts';
 import { assertUnitary, DEFAULT_UNITARITY_TOLERANCE } from './checks.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
 import { LuDecomposition } from './lu.ts';
+import { BandedLu, bandwidth } from './banded-lu.ts';
+import { CLUSTER_SEPARATION, unitaryInverseIteration } from './unitary-inverse-iteration.ts';
 
 export interface UnitaryEigenOptions {
   /** Accepted ‖U†U − 1‖_F / max(1, √n) (default 1e-8). */
@@ -48,6 +50,16 @@ const MIN_CUT_CLEARANCE = 2e-3;
 const RESIDUAL_TARGET = 2e-14;
 /** First position of the Cayley cut (the golden angle): no eigenphase commonly sits there. */
 const FIRST_CUT = Math.PI * (3 - Math.sqrt(5));
+/** Smallest n for which the banded route is tried (below it the dense route costs microseconds). */
+const BANDED_MIN_SIZE = 16;
+/** The banded route is tried when the bandwidth b satisfies b·BANDED_MAX_FRACTION ≤ n (its cost grows like n²b²). */
+const BANDED_MAX_FRACTION = 8;
+/**
+ * Certification of the banded route: Gram entries of eigenvectors whose eigenvalues lie
+ * closer than this (chained) are computed; farther pairs are bounded by (r_i + r_j)/|λ_i − λ_j|,
+ * at most 40·r here, so the bound stays near the rounding level.
+ */
+const GRAM_WINDOW = 0.05;
 
 export class UnitaryEigen {
   /** Eigenphases φ in (−π, π], ascending; the eigenvalues are e^{iφ}. */
@@ -72,6 +84,18 @@ export class UnitaryEigen {
         return;
       }
     }
+    if (n >= BANDED_MIN_SIZE) {
+      const b = bandwidth(u);
+      if (b * BANDED_MAX_FRACTION <= n) {
+        const banded = bandedRoute(u, b);
+        if (banded !== null) {
+          this.phases = banded.phases;
+          this.vectors = banded.vectors;
+          this.residual = banded.residual;
+          return;
+        }
+      }
+    }
     let v: ComplexMatrix, uv: ComplexMatrix;
     if (n <= 2) {
       v = n === 2 ? twoByTwoVectors(u) : identity(n);
@@ -88,26 +112,141 @@ export class UnitaryEigen {
         uv = multiply(u, v);
       }
     }
-    refineClusters(v, uv);
-    const phases = rayleighPhases(v, uv);
-    // Sort ascending, permuting columns.
-    const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => phases[a] - phases[b]);
-    const sorted = new Float64Array(n);
-    const vs = zeros(n, n), uvs = zeros(n, n);
-    for (let c = 0; c < n; c++) {
-      const src = order[c];
-      sorted[c] = phases[src];
-      for (let r = 0; r < n; r++) {
-        vs.re[r * n + c] = v.re[r * n + src];
-        vs.im[r * n + c] = v.im[r * n + src];
-        uvs.re[r * n + c] = uv.re[r * n + src];
-        uvs.im[r * n + c] = uv.im[r * n + src];
-      }
-    }
-    this.phases = sorted;
-    this.vectors = vs;
-    this.residual = residualNorm(vs, uvs, sorted);
+    const done = finish(v, uv);
+    this.phases = done.phases;
+    this.vectors = done.vectors;
+    this.residual = done.residual;
   }
+}
+
+/** Cluster refinement, Rayleigh phases, ascending order and residual of an eigenbasis V with UV. */
+function finish(v: ComplexMatrix, uv: ComplexMatrix): { phases: Float64Array; vectors: ComplexMatrix; uv: ComplexMatrix; residual: number } {
+  const n = v.rows;
+  refineClusters(v, uv);
+  const phases = rayleighPhases(v, uv);
+  // Sort ascending, permuting columns.
+  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => phases[a] - phases[b]);
+  const sorted = new Float64Array(n);
+  const vs = zeros(n, n), uvs = zeros(n, n);
+  for (let c = 0; c < n; c++) {
+    const src = order[c];
+    sorted[c] = phases[src];
+    for (let r = 0; r < n; r++) {
+      vs.re[r * n + c] = v.re[r * n + src];
+      vs.im[r * n + c] = v.im[r * n + src];
+      uvs.re[r * n + c] = uv.re[r * n + src];
+      uvs.im[r * n + c] = uv.im[r * n + src];
+    }
+  }
+  return { phases: sorted, vectors: vs, uv: uvs, residual: residualNorm(vs, uvs, sorted) };
+}
+
+/**
+ * Banded U (bandwidth b ≪ n, e.g. the Floquet operator of a ribbon): the
+ * eigenphases come from the Cayley matrix as in the dense route, but its
+ * inverse from a banded LU (O(n² b)) and its Hermitian eigensolve without
+ * eigenvectors (no QL rotations, no back-transform); the eigenvectors come from
+ * inverse iteration on U itself (unitary-inverse-iteration.ts). The result is
+ * accepted only when it certifies itself: ‖UV − VΛ‖_F ≤ RESIDUAL_TARGET·n and
+ * a bound on ‖V†V − 1‖_F ≤ RESIDUAL_TARGET·n, where the bound takes the Gram
+ * entries explicitly inside groups of eigenvalues closer than GRAM_WINDOW and
+ * (r_i + r_j)/|λ_i − λ_j| between groups (valid for any normal U, r the column
+ * residuals). Otherwise null: the caller runs the dense
+ * route (Householder + QL with eigenvectors).
+ */
+function bandedRoute(u: ComplexMatrix, b: number): { phases: Float64Array; vectors: ComplexMatrix; residual: number } | null {
+  const n = u.rows;
+  let pass = cayleyPass(u, FIRST_CUT, b);
+  const { distance, gapCentre, gapWidth } = cutClearance(pass.phases, pass.cut);
+  if (distance < Math.min(MIN_CUT_CLEARANCE, gapWidth / 4)) pass = cayleyPass(u, gapCentre, b);
+  // Re-orthogonalisation costs O(n k²) per vector in a group of k close eigenvalues:
+  // large groups (flat bands) are cheaper on the dense route.
+  if (largestGroup(pass.phases, CLUSTER_SEPARATION) * BANDED_MAX_FRACTION > n) return null;
+  const v = unitaryInverseIteration(u, b, pass.phases);
+  const done = finish(v, multiply(u, v));
+  if (!(done.residual <= RESIDUAL_TARGET * n)) return null;
+  if (!(orthogonalityBound(done.vectors, done.uv, done.phases) <= RESIDUAL_TARGET * n)) return null;
+  return done;
+}
+
+/** Size of the largest group of eigenphases chained by circular chords below `width`. */
+function largestGroup(phases: Float64Array, width: number): number {
+  const sorted = Float64Array.from(phases).sort();
+  const n = sorted.length;
+  if (n === 0) return 0;
+  const close = (a: number, c: number) => 2 * Math.abs(Math.sin(0.5 * (a - c))) < width;
+  // Start after a wide gap so that no group wraps around ±π.
+  const start = (largestGap(sorted).below + 1) % n;
+  let best = 1, run = 1;
+  for (let k = 1; k < n; k++) {
+    run = close(sorted[(start + k) % n], sorted[(start + k - 1) % n]) ? run + 1 : 1;
+    best = Math.max(best, run);
+  }
+  return best;
+}
+
+/**
+ * Upper bound on ‖V†V − 1‖_F for columns with ascending phases: explicit Gram
+ * entries within groups closer than GRAM_WINDOW (chained on the circle),
+ * (r_i + r_j)/|e^{iφ_i} − e^{iφ_j}| for pairs in different groups, with
+ * r_j = ‖Uv_j − e^{iφ_j}v_j‖ / ‖v_j‖ (the bound holds for normal U).
+ */
+function orthogonalityBound(v: ComplexMatrix, uv: ComplexMatrix, phases: Float64Array): number {
+  const n = v.rows;
+  if (n === 0) return 0;
+  const res = new Float64Array(n), norm2 = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    const cr = Math.cos(phases[j]), ci = Math.sin(phases[j]);
+    let s = 0, q = 0;
+    for (let r = 0; r < n; r++) {
+      const p = r * n + j;
+      const xr = v.re[p], xi = v.im[p];
+      const dr = uv.re[p] - (xr * cr - xi * ci), di = uv.im[p] - (xr * ci + xi * cr);
+      s += dr * dr + di * di;
+      q += xr * xr + xi * xi;
+    }
+    norm2[j] = q;
+    res[j] = Math.sqrt(s / q);
+  }
+  // Group labels: a new group after every gap of at least GRAM_WINDOW; the last group joins the first across ±π.
+  const label = new Int32Array(n);
+  const chord = (a: number, c: number) => 2 * Math.abs(Math.sin(0.5 * (phases[a] - phases[c])));
+  for (let j = 1; j < n; j++) label[j] = label[j - 1] + (chord(j, j - 1) >= GRAM_WINDOW ? 1 : 0);
+  if (n > 1 && chord(0, n - 1) < GRAM_WINDOW) {
+    const last = label[n - 1];
+    for (let j = n - 1; j >= 0 && label[j] === last; j--) label[j] = 0;
+  }
+  // Columns as contiguous rows for the explicit inner products.
+  const tr = new Float64Array(n * n), ti = new Float64Array(n * n);
+  for (let r = 0; r < n; r++) {
+    for (let j = 0; j < n; j++) {
+      tr[j * n + r] = v.re[r * n + j];
+      ti[j * n + r] = v.im[r * n + j];
+    }
+  }
+  let total = 0;
+  for (let i = 0; i < n; i++) {
+    total += (norm2[i] - 1) ** 2;
+    const oi = i * n;
+    for (let j = i + 1; j < n; j++) {
+      let g2: number;
+      if (label[i] === label[j]) {
+        let sr = 0, si = 0;
+        const oj = j * n;
+        for (let r = 0; r < n; r++) {
+          const ar = tr[oi + r], ai = ti[oi + r], br = tr[oj + r], bi = ti[oj + r];
+          sr += ar * br + ai * bi;
+          si += ar * bi - ai * br;
+        }
+        g2 = sr * sr + si * si;
+      } else {
+        const bound = (res[i] + res[j]) / chord(i, j);
+        g2 = bound * bound;
+      }
+      total += 2 * g2;
+    }
+  }
+  return Math.sqrt(total);
 }
 
 /** Folds an angle into (−π, π]. */
@@ -225,22 +364,45 @@ function antiHermitianPart(m: ComplexMatrix): ComplexMatrix {
   return k;
 }
 
-function cayleyPass(u: ComplexMatrix, cut: number): { phases: Float64Array; vectors: ComplexMatrix; cut: number } {
+/**
+ * Eigenphases (and, for the dense route, eigenvectors) from the Cayley matrix with
+ * the cut at `cut`. With `band` (the bandwidth of U) the inverse comes from a
+ * banded LU and no eigenvectors are computed (`vectors` is then empty).
+ */
+function cayleyPass(u: ComplexMatrix, cut: number, band?: number): { phases: Float64Array; vectors: ComplexMatrix; cut: number } {
   const n = u.rows;
   const theta = cut - Math.PI;
   const wr = Math.cos(theta), wi = -Math.sin(theta);
-  const onePlusW = zeros(n, n);
-  for (let p = 0; p < n * n; p++) {
-    onePlusW.re[p] = wr * u.re[p] - wi * u.im[p];
-    onePlusW.im[p] = wr * u.im[p] + wi * u.re[p];
+  let inv: ComplexMatrix;
+  if (band !== undefined) {
+    const lu = new BandedLu(n, band).factor(u, wr, wi, 1, 0);
+    if (lu.singular) return cayleyPass(u, cut + 0.1234567, band);
+    inv = zeros(n, n);
+    const xr = new Float64Array(n), xi = new Float64Array(n);
+    for (let j = 0; j < n; j++) {
+      xr.fill(0);
+      xi.fill(0);
+      xr[j] = 1;
+      lu.solveInPlace(xr, xi);
+      for (let r = 0; r < n; r++) {
+        inv.re[r * n + j] = xr[r];
+        inv.im[r * n + j] = xi[r];
+      }
+    }
+  } else {
+    const onePlusW = zeros(n, n);
+    for (let p = 0; p < n * n; p++) {
+      onePlusW.re[p] = wr * u.re[p] - wi * u.im[p];
+      onePlusW.im[p] = wr * u.im[p] + wi * u.re[p];
+    }
+    for (let k = 0; k < n; k++) onePlusW.re[k * n + k] += 1;
+    const lu = new LuDecomposition(onePlusW);
+    if (lu.singular) {
+      // An eigenvalue sits exactly on the cut; move the cut by a small irrational amount.
+      return cayleyPass(u, cut + 0.1234567);
+    }
+    inv = lu.inverse();
   }
-  for (let k = 0; k < n; k++) onePlusW.re[k * n + k] += 1;
-  const lu = new LuDecomposition(onePlusW);
-  if (lu.singular) {
-    // An eigenvalue sits exactly on the cut; move the cut by a small irrational amount.
-    return cayleyPass(u, cut + 0.1234567);
-  }
-  const inv = lu.inverse();
   // A = 2i X − i, then symmetrised inside HermitianEigen.
   const a = zeros(n, n);
   for (let p = 0; p < n * n; p++) {
@@ -248,10 +410,10 @@ function cayleyPass(u: ComplexMatrix, cut: number): { phases: Float64Array; vect
     a.im[p] = 2 * inv.re[p];
   }
   for (let k = 0; k < n; k++) a.im[k * n + k] -= 1;
-  const eig = new HermitianEigen(a, { hermiticityTolerance: Infinity });
+  const eig = new HermitianEigen(a, { hermiticityTolerance: Infinity, vectors: band === undefined });
   const phases = new Float64Array(n);
   for (let k = 0; k < n; k++) phases[k] = foldPhase(theta + 2 * Math.atan(eig.values[k]));
-  return { phases, vectors: eig.vectors, cut };
+  return { phases, vectors: band === undefined ? eig.vectors : zeros(0, 0), cut };
 }
 
 /** Distance of the nearest eigenphase from the cut, and the centre and width of the largest gap. */

@@ -18,7 +18,7 @@ import { zeros } from './complex-matrix.ts';
 import { BandedLu } from './banded-lu.ts';
 
 /** Eigenvalues (on the unit circle) closer than this are re-orthogonalised together. */
-export const CLUSTER_SEPARATION = 1e-2;
+export const CLUSTER_SEPARATION = 1e-3;
 /** Solves per eigenvector at most (LAPACK's stein uses five). */
 const MAX_SOLVES = 5;
 
