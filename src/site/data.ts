@@ -34,6 +34,11 @@ export function loadSiteData(): { summary: CatalogueSummary; records: Map<string
   return cached;
 }
 
+/** The conventions document (Markdown) that every verdict on the site refers to. */
+export function conventionsMarkdown(): string {
+  return readFileSync(resolve('docs', 'conventions.md'), 'utf8');
+}
+
 /** The source text of a model file as it was verified (for downloads), or null. */
 export function modelSource(record: ModelRecord): string | null {
   const file = resolve(record.file);

@@ -14,9 +14,7 @@ import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, type Command, type CommandIO } from '
 import { runVerifiedCheck } from './verify-summary.ts';
 import { serveStatic } from '../static-server.ts';
 
-const HELP = `strobe site [--serve] [--port N] [--host ADDRESS] [--skip-check] [check options…]
-
-Verifies the catalogue (like strobe check: writes results/), builds the static
+const HELP = `Verifies the catalogue (like strobe check: writes results/), builds the static
 site into dist/ from the results records, and with --serve serves it until
 interrupted (Ctrl-C), printing the address.
 
@@ -75,7 +73,7 @@ function runAstroBuild(cwd: string, io: CommandIO): Promise<number> {
 export const siteCommand: Command = {
   name: 'site',
   summary: 'verify the catalogue, build the site and optionally serve it',
-  usage: 'strobe site [--serve] [--port N] [--skip-check]',
+  usage: 'strobe site [--serve] [--port N] [--host ADDRESS] [--skip-check] [check options…]',
   help: HELP,
   async run(args: string[], io: CommandIO): Promise<number> {
     const options = parseSiteOptions(args);
