@@ -73,14 +73,6 @@ export function selectColumns(v: ComplexMatrix, cols: number[]): ComplexMatrix {
   return out;
 }
 
-/** det(A† B) for N × m frames A, B, as [re, im]. */
-export function overlapDeterminant(a: ComplexMatrix, b: ComplexMatrix): [number, number] {
-  overlapDeterminantInto(a, b, scratchPair);
-  return [scratchPair[0], scratchPair[1]];
-}
-
-const scratchPair = new Float64Array(2);
-
 /** det(A† B) into out[0] (re), out[1] (im); one and two columns without allocation. */
 function overlapDeterminantInto(a: ComplexMatrix, b: ComplexMatrix, out: Float64Array): void {
   const n = a.rows, m = a.cols;

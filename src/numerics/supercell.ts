@@ -83,8 +83,3 @@ export function truncateDrive(drive: LatticeDrive, finiteDirection: number, cell
     segments,
   };
 }
-
-/** Index of state (cell j, orbital a) in a drive produced by `truncateDrive`. */
-export function supercellIndex(orbitalsPerCell: number, cell: number, orbital: number): number {
-  return cell * orbitalsPerCell + orbital;
-}

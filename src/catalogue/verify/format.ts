@@ -7,7 +7,3 @@ export function formatQuasienergy(label: number): string {
   if (Math.abs(Math.abs(x) - 1) < 1e-12) return 'ε = π/T';
   return `ε = ${Number(x.toPrecision(4))} π/T`;
 }
-
-export function formatSigned(n: number): string {
-  return n > 0 ? `+${n}` : `${n}`;
-}

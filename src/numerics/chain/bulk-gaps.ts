@@ -85,12 +85,6 @@ export interface BulkGaps {
   evaluations: number;
 }
 
-/** Eigenphases φ ∈ (−π, π] of U(s, T) (eigenvalues e^{iφ}); quasienergy ε = −φ/π in units π/T. */
-export function floquetPhases(drive: LatticeDrive, s: number, propagator?: PropagatorOptions): PhaseSample {
-  const p = floquetOperator(drive, [s], propagator);
-  return { phases: new UnitaryEigen(p.operator).phases, accuracy: p.accuracy };
-}
-
 /**
  * U(s, T) and its eigenphases memoised per reduced momentum (taken modulo 1,
  * which the periodic Bloch gauge allows), so that the gap scan, its

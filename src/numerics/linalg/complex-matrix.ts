@@ -66,13 +66,6 @@ export function set(a: ComplexMatrix, i: number, j: number, re: number, im: numb
   a.im[p] = im;
 }
 
-/** Adds re + i·im to element (i, j) in place. */
-export function addTo(a: ComplexMatrix, i: number, j: number, re: number, im: number): void {
-  const p = i * a.cols + j;
-  a.re[p] += re;
-  a.im[p] += im;
-}
-
 /** C = A·B. */
 export function multiply(a: ComplexMatrix, b: ComplexMatrix, out?: ComplexMatrix): ComplexMatrix {
   if (a.cols !== b.rows) throw new RangeError(`multiply: ${a.rows}×${a.cols} times ${b.rows}×${b.cols}`);
