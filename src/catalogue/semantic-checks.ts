@@ -1,7 +1,8 @@
 /**
  * Checks beyond the schema: everything that needs more than one field at a time
  * (orbital names, offsets against the dimension, durations against the period,
- * symmetry operators against the basis, the handedness of the lattice basis)
+ * symmetry operators against the basis, the handedness of the lattice basis,
+ * which only warns)
  * and every expression evaluated against the parameters.
  */
 import type { Amplitude, MatrixEntry, ModelDocument, Modulation, Quantity } from './model-types.generated.ts';
@@ -76,10 +77,13 @@ export function checkSemantics(doc: ModelDocument, values: ReadonlyMap<string, n
     if (Math.abs(cross) <= DEGENERATE_BASIS_TOLERANCE * scale) {
       issues.push({ pointer: '/lattice/vectors', message: 'lattice vectors a1 and a2 are parallel (a1 × a2 = 0)', hint: 'give two independent vectors' });
     } else if (cross < 0) {
+      // Not an error: the engine multiplies C and W by o = sign det(a₁, a₂), so the physics does not
+      // depend on the handedness (docs/conventions.md, Orientation); edge names do, hence the warning.
       issues.push({
         pointer: '/lattice/vectors',
-        message: `the basis (a1, a2) is left-handed: a1 × a2 = ${formatNumber(cross)} < 0`,
-        hint: 'swap a1 and a2 (and the offset components, sweep axes and edge names that refer to them), or negate one vector: signs of Chern numbers, windings and edge modes are defined for a right-handed basis',
+        severity: 'warning',
+        message: 'left-handed basis (a₁, a₂): Chern and winding numbers are reported in the Cartesian orientation; edge counts are named by the lattice vectors, so their signs follow the table in docs/conventions.md',
+        hint: `a₁ × a₂ = ${formatNumber(cross)} < 0; nothing to fix if intended, or swap a₁ and a₂ (with the offset components, edge names and sweep axes that refer to them) for a right-handed basis`,
       });
     }
   }

@@ -9,12 +9,19 @@
  * (Hoffman–Wielandt), hence of every eigenphase·(1 + O(δ²)); the finer result is
  * kept, so the reported accuracy is conservative (the CF4 error of U_2N is
  * about 1/16 of the reported change).
+ *
+ * Sweeps over many momenta (prepareFloquet) do not redo the doubling at every
+ * momentum: the slice counts are settled once per drive at a few probe momenta
+ * where ‖H‖ is largest (the CF4 error grows with (h‖H‖)⁴, so these are the
+ * hardest points) and reused everywhere. Each momentum still measures what it
+ * achieved, ‖U_N − U_{N/2}‖_F, and doubles further on its own in the rare case
+ * that this exceeds the tolerance.
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
 import { distance, identity, multiply, zeros } from './linalg/complex-matrix.ts';
 import { expMinusIHt, expMinusIHtBlocks, prepareExponential } from './linalg/exponential.ts';
 import type { LatticeDrive } from './drive.ts';
-import { angularFrequency } from './drive.ts';
+import { angularFrequency, segmentStartTimes } from './drive.ts';
 import type { ConstantDrive, PreparedBloch } from './bloch.ts';
 import { compileConstantDrive, prepareBloch } from './bloch.ts';
 import { cf4NodeTimes, magnusCF4AtNodes } from './magnus.ts';
@@ -24,6 +31,13 @@ export interface PropagatorOptions {
   tolerance?: number;
   /** Largest number of Magnus slices per segment, default 4096. */
   maxSlices?: number;
+  /**
+   * Starting number of Magnus slices per period (a segment of duration τ starts
+   * from ⌈startSlices·τ/T⌉, at least 2) before doubling; default from an
+   * estimate of ‖H‖ (half a radian of phase per slice). Model files set it
+   * with numerics.timeSlices.
+   */
+  startSlices?: number;
 }
 
 export interface Propagation {
@@ -48,12 +62,37 @@ interface SegmentPlan {
   converged: boolean;
 }
 
-function checkOptions(options: PropagatorOptions): { tolerance: number; maxSlices: number } {
+/**
+ * The eigenphase tolerance (radians) that the verdicts need, from the gap
+ * tolerance (units π/T: a gap narrower than this counts as closed) and the
+ * integer tolerance (accepted |x − round x| of an invariant):
+ *     δ = π · gapTolerance · min(integerTolerance, 1/100).
+ * Why: (i) every gap counted open is ≥ π·gapTolerance in eigenphase, so δ is at
+ * most 1/100 of it and the open/closed decision and the sign of every
+ * quasienergy relative to a cut are unchanged; the integrated loop of the gap
+ * winding number then stays homotopic to the exact one (winding-loop.ts asks for
+ * the same factor 100). (ii) Eigenvectors move by at most ‖δU‖/Δ (Davis–Kahan),
+ * Δ ≥ π·gapTolerance the gap, so projector-built quantities (link variables,
+ * winding densities, edge weights) move by at most a fraction integerTolerance
+ * of themselves. Defaults gap 1e-3, integer 1e-3 give δ = π·10⁻⁶ (10⁻⁶ in units π/T).
+ */
+export function verdictPropagatorTolerance(gapTolerance: number, integerTolerance: number): number {
+  if (!(gapTolerance > 0) || !(integerTolerance > 0)) {
+    throw new RangeError(`verdictPropagatorTolerance: tolerances must be positive, got gap ${gapTolerance}, integer ${integerTolerance}`);
+  }
+  return Math.PI * gapTolerance * Math.min(integerTolerance, 0.01);
+}
+
+function checkOptions(options: PropagatorOptions): { tolerance: number; maxSlices: number; startSlices: number | undefined } {
   const tolerance = options.tolerance ?? DEFAULT_PROPAGATOR_TOLERANCE;
   const maxSlices = options.maxSlices ?? DEFAULT_MAX_SLICES;
+  const startSlices = options.startSlices;
   if (!(tolerance > 0)) throw new RangeError(`floquetOperator: tolerance must be positive, got ${tolerance}`);
   if (!(Number.isInteger(maxSlices) && maxSlices >= 1)) throw new RangeError(`floquetOperator: maxSlices must be a positive integer, got ${maxSlices}`);
-  return { tolerance, maxSlices };
+  if (startSlices !== undefined && !(Number.isInteger(startSlices) && startSlices >= 1)) {
+    throw new RangeError(`floquetOperator: startSlices must be a positive integer, got ${startSlices}`);
+  }
+  return { tolerance, maxSlices, startSlices };
 }
 
 /** Largest frequency present in a segment (harmonics of modulations and vector potential), in absolute units. */
@@ -72,35 +111,148 @@ function magnusSegment(bloch: PreparedBloch, index: number, t0: number, t1: numb
 }
 
 /**
- * A momentum-independent bound on ‖H(s, t)‖₂ over a segment: Σ |amplitude|·max|f|.
- * Starting every momentum from the same slice count keeps the Magnus grids (and the
- * cached node tables) shared across a k grid.
+ * A momentum-independent bound on ‖H(s, t)‖₂ over a segment: the largest
+ * absolute row sum of H (which bounds the spectral norm of a Hermitian matrix),
+ * with each term counted at |amplitude|·max|f| in the rows of both states it
+ * couples. Row sums stay local: on a ribbon or open chain the bound is that of
+ * one cell's neighbourhood, not the sum over the whole width. Starting every
+ * momentum from the same slice count keeps the Magnus grids (and the cached
+ * node tables) shared across a k grid.
  */
 function segmentEnergyScale(drive: LatticeDrive, index: number): number {
-  let scale = 0;
+  const rows = new Float64Array(drive.states.length);
   for (const term of drive.segments[index].terms) {
     const m = term.modulation;
     const fMax = m.kind === 'constant' ? 1 : Math.abs(m.mean) + m.components.reduce((sum, c) => sum + Math.abs(c.amplitude), 0);
-    scale += Math.hypot(term.amplitude.re, term.amplitude.im) * fMax;
+    const size = Math.hypot(term.amplitude.re, term.amplitude.im) * fMax;
+    const onsite = term.from === term.to && term.offset.every((x) => x === 0);
+    rows[term.to] += size;
+    if (!onsite) rows[term.from] += size;
   }
-  return scale;
+  return rows.reduce((a, b) => Math.max(a, b), 0);
 }
 
-/** Refines the Magnus slice count of one time-dependent segment by doubling from a k-independent start. */
-function planSegment(drive: LatticeDrive, bloch: PreparedBloch, index: number, start: number, tolerance: number, maxSlices: number): SegmentPlan {
+/** First slice count of a time-dependent segment: from startSlices (per period) or half a radian of phase per slice. */
+function startingSlices(drive: LatticeDrive, index: number, startSlices: number | undefined, maxSlices: number): number {
   const seg = drive.segments[index];
-  const scale = segmentEnergyScale(drive, index) + segmentFrequency(drive, index);
-  let slices = Math.min(maxSlices, Math.max(2, Math.ceil((seg.duration * scale) / 0.5)));
-  let coarse = magnusSegment(bloch, index, start, start + seg.duration, slices);
+  const guess =
+    startSlices !== undefined
+      ? Math.ceil((startSlices * seg.duration) / drive.period)
+      : Math.ceil((seg.duration * (segmentEnergyScale(drive, index) + segmentFrequency(drive, index))) / 0.5);
+  return Math.min(maxSlices, Math.max(2, guess));
+}
+
+/**
+ * Slice doubling of one time-dependent segment from `slices` (whose operator is
+ * `coarse` when already known) until ‖U_2N − U_N‖_F ≤ tolerance; keeps the finer.
+ */
+function refineSegment(bloch: PreparedBloch, index: number, start: number, duration: number, slices: number, coarse: ComplexMatrix | undefined, tolerance: number, maxSlices: number): SegmentPlan {
+  let current = coarse ?? magnusSegment(bloch, index, start, start + duration, slices);
   for (;;) {
-    if (2 * slices > maxSlices) return { slices, operator: coarse, accuracy: Infinity, converged: false };
-    const fine = magnusSegment(bloch, index, start, start + seg.duration, 2 * slices);
-    const change = distance(fine, coarse);
+    if (2 * slices > maxSlices) return { slices, operator: current, accuracy: Infinity, converged: false };
+    const fine = magnusSegment(bloch, index, start, start + duration, 2 * slices);
+    const change = distance(fine, current);
     slices *= 2;
     if (change <= tolerance) return { slices, operator: fine, accuracy: change, converged: true };
     if (2 * slices > maxSlices) return { slices, operator: fine, accuracy: change, converged: false };
-    coarse = fine;
+    current = fine;
   }
+}
+
+/** Refines the Magnus slice count of one time-dependent segment by doubling from a k-independent start. */
+function planSegment(drive: LatticeDrive, bloch: PreparedBloch, index: number, start: number, tolerance: number, maxSlices: number, startSlices?: number): SegmentPlan {
+  return refineSegment(bloch, index, start, drive.segments[index].duration, startingSlices(drive, index, startSlices, maxSlices), undefined, tolerance, maxSlices);
+}
+
+/**
+ * U of a time-dependent segment with the slice count N of the drive's plan: the
+ * achieved accuracy is measured at this momentum as ‖U_N − U_{N/2}‖_F, and only
+ * if that misses the tolerance does doubling continue here.
+ */
+function plannedSegment(bloch: PreparedBloch, index: number, start: number, duration: number, slices: number, tolerance: number, maxSlices: number): SegmentPlan {
+  const fine = magnusSegment(bloch, index, start, start + duration, slices);
+  if (slices < 2) return refineSegment(bloch, index, start, duration, slices, fine, tolerance, maxSlices);
+  const change = distance(fine, magnusSegment(bloch, index, start, start + duration, slices / 2));
+  if (change <= tolerance) return { slices, operator: fine, accuracy: change, converged: true };
+  return refineSegment(bloch, index, start, duration, slices, fine, tolerance, maxSlices);
+}
+
+/** Momenta {0, 1/4, 1/2, 3/4}^dimension (eight points on a chain), the candidates for probing. */
+function candidateMomenta(dimension: number): number[][] {
+  const per = dimension === 1 ? 8 : 4;
+  let out: number[][] = [[]];
+  for (let d = 0; d < dimension; d++) out = out.flatMap((s) => Array.from({ length: per }, (_, j) => [...s, j / per]));
+  return out;
+}
+
+/** Largest absolute row sum of H(s, t) at a few times in each time-dependent segment (a bound on ‖H‖₂). */
+function sampledNorm(bloch: PreparedBloch, drive: LatticeDrive, timeDependent: number[], starts: number[]): number {
+  const n = bloch.size, h = zeros(n, n);
+  let best = 0;
+  for (const i of timeDependent) {
+    for (let j = 0; j < 8; j++) {
+      bloch.segmentAt(i, starts[i] + ((j + 0.5) / 8) * drive.segments[i].duration, h);
+      for (let r = 0; r < n; r++) {
+        let sum = 0;
+        for (let c = 0; c < n; c++) sum += Math.hypot(h.re[r * n + c], h.im[r * n + c]);
+        best = Math.max(best, sum);
+      }
+    }
+  }
+  return best;
+}
+
+export interface MagnusSlicePlan {
+  /** Slices per segment (1 for constant segments and kicks). */
+  slices: number[];
+  /** Momenta the counts were settled at. */
+  probes: number[][];
+  /** Largest summed ‖U_N − U_{N/2}‖_F over the probes. */
+  accuracy: number;
+  /** False when a segment reached maxSlices at a probe. */
+  converged: boolean;
+}
+
+/** Number of probe momenta (those with the largest ‖H‖) at which the slice counts of a drive are settled. */
+export const SLICE_PROBES = 3;
+
+/**
+ * Magnus slice counts for a whole drive, settled once: doubling at the
+ * SLICE_PROBES candidate momenta with the largest ‖H(s, t)‖ (the CF4 error
+ * grows with (h‖H‖)⁴), plus any `extraMomenta` the caller needs; each probe
+ * starts from the counts the previous ones reached, so agreeing probes cost one
+ * comparison each.
+ */
+export function magnusSlicePlan(drive: LatticeDrive, options: PropagatorOptions = {}, extraMomenta: number[][] = []): MagnusSlicePlan {
+  const { tolerance, maxSlices, startSlices } = checkOptions(options);
+  checkDurations(drive);
+  const starts = segmentStartTimes(drive);
+  const reference = prepareBloch(drive, new Array<number>(drive.dimension).fill(0));
+  const timeDependent = drive.segments.map((seg, i) => (seg.duration > 0 && !reference.isConstant(i) ? i : -1)).filter((i) => i >= 0);
+  const slices = drive.segments.map(() => 1);
+  if (timeDependent.length === 0) return { slices, probes: [], accuracy: 0, converged: true };
+  const ranked = candidateMomenta(drive.dimension)
+    .map((s) => ({ s, norm: sampledNorm(prepareBloch(drive, s), drive, timeDependent, starts) }))
+    .sort((a, b) => b.norm - a.norm)
+    .slice(0, SLICE_PROBES)
+    .map((c) => c.s);
+  const probes = [...ranked, ...extraMomenta];
+  const current = drive.segments.map((_, i) => (timeDependent.includes(i) ? startingSlices(drive, i, startSlices, maxSlices) : 1));
+  let accuracy = 0, converged = true;
+  for (const s of probes) {
+    const bloch = prepareBloch(drive, s);
+    let summed = 0;
+    for (const i of timeDependent) {
+      // Check the current count N against N/2 (refinement from N/2 compares exactly these two first).
+      const from = slices[i] > 1 ? slices[i] / 2 : current[i];
+      const p = refineSegment(bloch, i, starts[i], drive.segments[i].duration, from, undefined, tolerance / timeDependent.length, maxSlices);
+      slices[i] = Math.max(slices[i], p.slices);
+      summed += p.accuracy;
+      converged &&= p.converged;
+    }
+    accuracy = Math.max(accuracy, summed);
+  }
+  return { slices, probes, accuracy, converged };
 }
 
 interface Plan {
@@ -109,25 +261,23 @@ interface Plan {
   segments: SegmentPlan[];
 }
 
-function plan(drive: LatticeDrive, s: ArrayLike<number>, options: PropagatorOptions): Plan {
-  const { tolerance, maxSlices } = checkOptions(options);
+/**
+ * Per-segment operators at one momentum: exact for constant segments and kicks;
+ * time-dependent segments either with the drive's planned slice counts
+ * (`planned`, see magnusSlicePlan) or by doubling from the starting count.
+ */
+function plan(drive: LatticeDrive, s: ArrayLike<number>, options: PropagatorOptions, planned?: number[]): Plan {
+  const { tolerance, maxSlices, startSlices } = checkOptions(options);
   const bloch = prepareBloch(drive, s);
   const n = bloch.size;
-  const starts: number[] = [];
-  let t = 0;
-  for (const seg of drive.segments) {
-    if (!(seg.duration >= 0) || !Number.isFinite(seg.duration)) throw new RangeError(`floquetOperator: segment duration ${seg.duration} is not a non-negative number`);
-    starts.push(t);
-    t += seg.duration;
-  }
-  if (Math.abs(t - drive.period) > 1e-9 * drive.period) {
-    throw new RangeError(`floquetOperator: segment durations sum to ${t}, the period is ${drive.period}`);
-  }
+  checkDurations(drive);
+  const starts = segmentStartTimes(drive);
   const timeDependent = drive.segments.filter((seg, i) => seg.duration > 0 && !bloch.isConstant(i)).length;
   const segments = drive.segments.map((seg, i): SegmentPlan => {
     if (seg.duration === 0) return { slices: 1, operator: expMinusIHt(bloch.segmentAt(i, starts[i], zeros(n, n)), 1), accuracy: 0, converged: true };
     if (bloch.isConstant(i)) return { slices: 1, operator: expMinusIHt(bloch.segmentAt(i, starts[i]), seg.duration), accuracy: 0, converged: true };
-    return planSegment(drive, bloch, i, starts[i], tolerance / timeDependent, maxSlices);
+    if (planned !== undefined) return plannedSegment(bloch, i, starts[i], seg.duration, planned[i], tolerance / timeDependent, maxSlices);
+    return planSegment(drive, bloch, i, starts[i], tolerance / timeDependent, maxSlices, startSlices);
   });
   return { bloch, starts, segments };
 }
@@ -149,13 +299,17 @@ export function floquetOperator(drive: LatticeDrive, s: ArrayLike<number>, optio
  * drive is compiled once (bloch.ts compileConstantDrive): per momentum only the
  * Bloch phases, one exponential per step on the step's fixed block structure and
  * the products remain, in preallocated work matrices (2×2 entirely in scalars).
- * Other drives go through the general plan. The drive must not change while the
- * returned function is in use.
+ * Other drives settle their Magnus slice counts once (magnusSlicePlan) and reuse
+ * them at every momentum, each momentum reporting the accuracy it achieved. The
+ * drive must not change while the returned function is in use.
  */
 export function prepareFloquet(drive: LatticeDrive, options: PropagatorOptions = {}): (s: ArrayLike<number>) => Propagation {
   checkOptions(options);
   const compiled = compileConstantDrive(drive);
-  if (compiled === null) return (s) => generalFloquet(drive, s, options);
+  if (compiled === null) {
+    const planned = magnusSlicePlan(drive, options).slices;
+    return (s) => generalFloquet(drive, s, options, planned);
+  }
   checkDurations(drive);
   return constantFloquet(compiled);
 }
@@ -222,8 +376,8 @@ function constantFloquet(compiled: ConstantDrive): (s: ArrayLike<number>) => Pro
   };
 }
 
-function generalFloquet(drive: LatticeDrive, s: ArrayLike<number>, options: PropagatorOptions): Propagation {
-  const p = plan(drive, s, options);
+function generalFloquet(drive: LatticeDrive, s: ArrayLike<number>, options: PropagatorOptions, planned?: number[]): Propagation {
+  const p = plan(drive, s, options, planned);
   const n = p.bloch.size;
   let u = identity(n);
   let accuracy = 0;

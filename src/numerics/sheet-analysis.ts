@@ -21,13 +21,14 @@ import { chernNumber, latticeOrientation } from './chern-fhs.ts';
 import type { DetectedGap } from './gaps.ts';
 import { bandGroups, DEFAULT_GAP_TOLERANCE, findGaps, orderFromCut } from './gaps.ts';
 import type { PropagatorOptions } from './propagator.ts';
+import { verdictPropagatorTolerance } from './propagator.ts';
 import type { QuasienergyGrid } from './quasienergy-bands.ts';
 import { aboveCut, FloquetSampler, gridNeighbour, sampleQuasienergyGrid } from './quasienergy-bands.ts';
 import type { EdgeCountOptions } from './edge-modes.ts';
 import { countEdgeModes } from './edge-modes.ts';
 import { ribbonSpectrum } from './ribbon.ts';
 import type { WindingOptions } from './winding.ts';
-import { gapWindingNumbers } from './winding.ts';
+import { DEFAULT_WINDING_TOLERANCE, gapWindingNumbers } from './winding.ts';
 
 export interface SheetRibbonOptions {
   /** Finite directions to cut (default both, [0, 1]). */
@@ -41,7 +42,7 @@ export interface SheetRibbonOptions {
 }
 
 export interface SheetOptions {
-  /** Band grid n1 × n2 (default [24, 24]). */
+  /** Band grid n1 × n2 (default [24, 24]); the Chern refinement starts at max(n1, n2) unless chern.initialGrid says otherwise. */
   grid?: number[];
   /** Gap tolerance, units π/T (default 1e-3). */
   gapTolerance?: number;
@@ -53,6 +54,12 @@ export interface SheetOptions {
   winding?: WindingOptions;
   ribbon?: SheetRibbonOptions;
   edges?: EdgeCountOptions;
+  /**
+   * Time integration of time-dependent segments. Without a tolerance, bands,
+   * Chern numbers and ribbons use verdictPropagatorTolerance(gapTolerance,
+   * winding tolerance) (propagator.ts states the rule); the winding numbers
+   * choose their own unless one is given here.
+   */
   propagator?: PropagatorOptions;
   /** Stages to run (all default true). */
   run?: { chern?: boolean; winding?: boolean; edges?: boolean };
@@ -102,7 +109,10 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   const run = { chern: true, winding: true, edges: true, ...options.run };
   const tolerance = options.gapTolerance ?? DEFAULT_GAP_TOLERANCE;
   const grid = options.grid ?? DEFAULT_SHEET_GRID;
-  const sampler = new FloquetSampler(drive, { propagator: options.propagator });
+  const integerTolerance = options.winding?.tolerance ?? DEFAULT_WINDING_TOLERANCE;
+  const propagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, integerTolerance) };
+  const chernOptions: ChernOptions = { initialGrid: Math.max(...grid), ...options.chern };
+  const sampler = new FloquetSampler(drive, { propagator });
 
   let t = clock();
   const data = sampleQuasienergyGrid(sampler, grid);
@@ -134,7 +144,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
       minimalInternalGap: g.minimalInternalGap,
       touching: g.touching,
     };
-    if (run.chern) report.chern = chernNumber(sampler, g.gapBelow, g.gapAbove, g.branches, options.chern);
+    if (run.chern) report.chern = chernNumber(sampler, g.gapBelow, g.gapAbove, g.branches, chernOptions);
     return report;
   });
   timings.chern = clock() - t;
@@ -159,7 +169,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
         width: options.ribbon?.width,
         edgeCells: options.ribbon?.edgeCells,
         momenta: options.ribbon?.momenta,
-        propagator: options.propagator,
+        propagator,
       });
       const counts: EdgeCountReport[] = [];
       for (const gap of ordered) counts.push(...countEdgeModes(spectrum, gap, bulkDecayLength(data, gap, direction), options.edges));

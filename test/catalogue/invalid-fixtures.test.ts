@@ -40,7 +40,6 @@ const cases: Record<string, Case> = {
   'gap-label-range': { pointer: '/claims/gaps/0/quasienergy', anchor: '2,\n        "invariant"', message: 'gap label 2 is outside (−1, 1] (units of π/T)' },
   'id-mismatch': { pointer: '/id', anchor: '"some-other-model"', message: 'id "some-other-model" does not match the file name "id-mismatch.json"', hint: 'rename the file to some-other-model.json or set "id": "id-mismatch"' },
   'id-not-kebab': { pointer: '/id', anchor: '"Id_Not_Kebab"', message: '"Id_Not_Kebab" is not in the expected form', hint: 'Kebab-case identifier equal to the file name without .json' },
-  'left-handed-basis': { pointer: '/lattice/vectors', anchor: '[\n      [\n        0,\n        1', message: 'the basis (a1, a2) is left-handed: a1 × a2 = -1 < 0' },
   'member-access': { pointer: '/parameters/J2', anchor: '.constructor', message: 'unexpected "."' },
   'missing-comma': { pointer: '', anchor: '"id"', message: 'expected "," between entries' },
   'missing-format-version': { pointer: '', message: 'missing property "formatVersion"', hint: 'formatVersion: Version of the model file format' },

@@ -69,6 +69,23 @@ describe('loadModels', () => {
     expect(diagnostics.map((d) => [d.severity, d.message])).toEqual([['warning', 'parameter "spare" is never used']]);
   });
 
+  it('loads a left-handed basis with a located warning, not an error (the engine accounts for the orientation)', async () => {
+    const file = 'test/fixtures/valid/left-handed-basis.json';
+    const report = await loadModels([file]);
+    expect(report.failures).toEqual([]);
+    expect(report.models.map((m) => m.id)).toEqual(['left-handed-basis']);
+    const text = readFileSync(file, 'utf8');
+    // a₁ = ŷ, a₂ = x̂: a₁ × a₂ = 0·0 − 1·1 = −1. The warning points at the "vectors" value.
+    const before = text.slice(0, text.indexOf('[', text.indexOf('"vectors"'))).split('\n');
+    expect(report.models[0].warnings).toEqual([
+      {
+        file, line: before.length, column: before[before.length - 1].length + 1, pointer: '/lattice/vectors', severity: 'warning',
+        message: 'left-handed basis (a₁, a₂): Chern and winding numbers are reported in the Cartesian orientation; edge counts are named by the lattice vectors, so their signs follow the table in docs/conventions.md',
+        hint: 'a₁ × a₂ = -1 < 0; nothing to fix if intended, or swap a₁ and a₂ (with the offset components, edge names and sweep axes that refer to them) for a right-handed basis',
+      },
+    ]);
+  });
+
   it('never throws on arbitrary bytes (seeded fuzz)', async () => {
     const dir = scratch();
     let seed = 12345;

@@ -65,10 +65,23 @@ export function classifySheet(entries: PortraitEntry[]): AnomalousFlag {
   return { classification: 'anomalous', reason: `every gap carries chiral modes (${values}), with nonzero band Chern numbers (${cherns.map((c) => c.value).join(', ')})` };
 }
 
-/** One dimension: `piInvariant` is the portrait entry of the gap at π/T, if any. */
+/**
+ * One dimension: `piInvariant` is the portrait entry of the gap at π/T, if any
+ * (chain-verdicts.ts lists it whenever a symmetry it rests on is declared).
+ * Its certificate lists the residuals of those symmetries: when one is broken,
+ * no invariant protects end modes at π/T and the chain is not anomalous.
+ */
 export function classifyChain(piInvariant: PortraitEntry | undefined): AnomalousFlag {
-  if (!piInvariant) return { classification: 'undetermined', reason: 'the gap at π/T is closed or was not examined' };
-  if (!piInvariant.settled) return { classification: 'undetermined', reason: `${piInvariant.label} is unsettled` };
+  if (!piInvariant) return { classification: 'undetermined', reason: 'no invariant of the gap at π/T was computed: the file declares no chiral or particle–hole symmetry' };
+  const broken = piInvariant.certificate.symmetry.filter((s) => !(s.residual <= s.tolerance));
+  if (broken.length > 0) {
+    const residuals = broken.map((s) => `${s.name} holds only to ${s.residual.toPrecision(3)} (tolerance ${s.tolerance.toPrecision(3)})`).join('; ');
+    return { classification: 'not-anomalous', reason: `symmetry broken: ${residuals}, so no invariant protects end modes at π/T` };
+  }
+  if (!piInvariant.settled) {
+    const why = piInvariant.certificate.notes.filter((n) => !/^computed as/.test(n));
+    return { classification: 'undetermined', reason: `${piInvariant.label} is unsettled${why.length > 0 ? ` (${why.join('; ')})` : ''}` };
+  }
   if (piInvariant.value !== 0) return { classification: 'anomalous', reason: `${piInvariant.label} is ${piInvariant.value}: end modes at π/T` };
   return { classification: 'not-anomalous', reason: `${piInvariant.label} is 0` };
 }

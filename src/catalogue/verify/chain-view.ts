@@ -45,9 +45,21 @@ export interface ChainView {
   invariants: ChainInvariant[];
   frames: FrameWinding[];
   endModes: EndModeCount[];
+  /**
+   * End-mode counts of a second, longer open chain (verify-model.ts recomputes
+   * them at 1.5× the length): a count is settled only when both lengths agree.
+   */
+  checkEndModes?: EndModeCount[];
   openChain: { length: number; quasienergies: number[]; lowEdgeWeight: number[]; highEdgeWeight: number[] } | null;
-  /** Symmetry residuals (e.g. ‖ΓUΓ† − U†‖ per frame) with their tolerance. */
+  /**
+   * Residuals of the declared symmetries with their tolerance, two per symmetry:
+   * the Hamiltonian relation and the Floquet-operator relation. Each name starts
+   * with the symmetry ("chiral", "particle-hole", "time-reversal") followed by
+   * " symmetry of H(t)…" or " symmetry of the Floquet operator".
+   */
   symmetry: { name: string; residual: number; tolerance: number }[];
+  /** Why the engine computed no 0/π invariant although a symmetry is declared (e.g. no symmetric time frame), when it says. */
+  invariantNote?: string;
   consistency: ConsistencyCheck[];
   propagatorAccuracy: number | null;
   /** The engine's gap tolerance (units π/T). */

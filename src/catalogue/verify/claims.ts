@@ -20,7 +20,18 @@ export type NormalizedClaim =
   | (ClaimBase & { kind: 'gap-invariant'; gap: number; value: number })
   | (ClaimBase & { kind: 'end-modes'; gap: number; value: number })
   | (ClaimBase & { kind: 'minimal-gap'; gap: number; value: number })
-  | (ClaimBase & { kind: 'anomalous'; value: boolean });
+  | (ClaimBase & { kind: 'anomalous'; value: boolean })
+  /** A declared symmetry operator: the file claims the drive has this symmetry (checked through its residuals). */
+  | (ClaimBase & { kind: 'symmetry'; symmetry: SymmetryName; value: true });
+
+export type SymmetryName = 'chiral' | 'particle-hole' | 'time-reversal';
+
+/** Where each declared symmetry operator sits in a model file. */
+export const SYMMETRY_POINTERS: Record<SymmetryName, string> = {
+  chiral: '/claims/symmetries/chiral/operator',
+  'particle-hole': '/claims/symmetries/particleHole/unitary',
+  'time-reversal': '/claims/symmetries/timeReversal/unitary',
+};
 
 export type ClaimKind = NormalizedClaim['kind'];
 
@@ -42,6 +53,11 @@ export function wrapLabel(x: number): number {
 
 export function normalizeClaims(doc: ModelDocument, evaluate: QuantityEvaluator): NormalizedClaim[] {
   const claims: NormalizedClaim[] = [];
+  const declared = doc.claims?.symmetries;
+  const symmetries: [SymmetryName, unknown][] = [['chiral', declared?.chiral], ['particle-hole', declared?.particleHole], ['time-reversal', declared?.timeReversal]];
+  for (const [symmetry, spec] of symmetries) {
+    if (spec !== undefined) claims.push({ kind: 'symmetry', id: `symmetry/${symmetry}`, pointer: SYMMETRY_POINTERS[symmetry], symmetry, value: true });
+  }
   const gaps = doc.claims?.gaps ?? [];
   gaps.forEach((g, i) => {
     const base = `/claims/gaps/${i}`;
@@ -87,7 +103,7 @@ export function normalizeClaims(doc: ModelDocument, evaluate: QuantityEvaluator)
 export function claimedGapLabels(claims: NormalizedClaim[]): number[] {
   const labels: number[] = [];
   for (const c of claims) {
-    const label = c.kind === 'chern' ? c.cut : c.kind === 'anomalous' ? undefined : c.gap;
+    const label = c.kind === 'chern' ? c.cut : c.kind === 'anomalous' || c.kind === 'symmetry' ? undefined : c.gap;
     if (label !== undefined && !labels.some((l) => Math.abs(l - label) < 1e-9)) labels.push(label);
   }
   return labels.sort((a, b) => a - b);

@@ -83,3 +83,73 @@ export function judgeEstimate(
   const settled = reasons.length === 0;
   return { value: settled ? nearest : null, nearest, settled, reasons, certificate };
 }
+
+/**
+ * One count of boundary-localised states taken by the engine at one system
+ * size: the signed edge count of a ribbon (sheets) or the end-mode count of an
+ * open chain (chains). A count is not refined on grids; what stands in for
+ * refinement is a second size (see `countAtTwoSizes`).
+ */
+export interface CountObservation {
+  /** System size of the count: [width, momenta] for a ribbon, [length] for a chain. */
+  grid: number[];
+  count: number | null;
+  /** The engine's own verdict on the count (decay length against the size, clean tracking, ends that agree). */
+  settled: boolean;
+  reason?: string;
+  /** Remark on the size and decay length, for the certificate. */
+  note: string;
+}
+
+/**
+ * Evidence for a count: settled when the engine settled it and every bulk gap
+ * it depends on is open. `observation` is a string when no count exists (why).
+ */
+export function countEvidence(stage: string, observation: CountObservation | string, gaps: GapEvidence[], unsettledReason: string): SettledInteger {
+  const certificate: Certificate = { grid: [], raw: null, residual: null, residualTolerance: null, refinement: [], gaps, symmetry: [], stage, notes: [] };
+  const reasons: string[] = [];
+  if (typeof observation === 'string') reasons.push(observation);
+  else {
+    certificate.grid = [...observation.grid];
+    certificate.notes.push(observation.note);
+    if (!observation.settled || observation.count === null) reasons.push(observation.reason ?? unsettledReason);
+  }
+  for (const g of gaps) {
+    if (!g.open) reasons.push(`the bulk gap at ${formatQuasienergy(g.gap)} is ${g.minimalGap.toPrecision(3)} π/T, not above the tolerance ${g.tolerance.toPrecision(3)} π/T`);
+  }
+  certificate.notes.push(...reasons);
+  const nearest = typeof observation === 'string' ? null : observation.count;
+  if (nearest !== null) certificate.raw = nearest;
+  const settled = reasons.length === 0 && nearest !== null;
+  return { value: settled ? nearest : null, nearest, settled, reasons, certificate };
+}
+
+/**
+ * A count is settled only if the same count comes out at a second, larger
+ * size: a count that depends on the width of the ribbon or the length of the
+ * chain is a finite-size artefact (hybridised end states, a bulk state leaking
+ * into the edge region), not a property of the phase. The refinement history
+ * lists both sizes. `second` is undefined when no second size was computed.
+ */
+export function countAtTwoSizes(first: SettledInteger, second: SettledInteger | undefined, size: 'ribbon width' | 'chain length'): SettledInteger {
+  if (!first.settled) return first;
+  const out: SettledInteger = { ...first, reasons: [...first.reasons], certificate: { ...first.certificate, notes: [...first.certificate.notes], refinement: [] } };
+  const n1 = first.certificate.grid[0];
+  out.certificate.refinement.push({ grid: [...first.certificate.grid], value: first.value as number });
+  let why: string | null = null;
+  if (!second) why = `computed at a single ${size} (${n1}): stability under a change of size not shown`;
+  else {
+    const n2 = second.certificate.grid[0];
+    if (second.nearest !== null) out.certificate.refinement.push({ grid: [...second.certificate.grid], value: second.nearest });
+    if (!second.settled) why = `at ${size} ${n2} the count is unsettled (${second.reasons.join('; ')})`;
+    else if (second.value !== first.value) why = `the count changed with the ${size}: ${first.value} at ${n1}, ${second.value} at ${n2}`;
+    else out.certificate.notes.push(`the same count (${first.value}) at ${size} ${n1} and ${n2}`);
+  }
+  if (why !== null) {
+    out.reasons.push(why);
+    out.certificate.notes.push(why);
+    out.settled = false;
+    out.value = null;
+  }
+  return out;
+}

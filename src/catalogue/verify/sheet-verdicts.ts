@@ -7,13 +7,13 @@
  *   - the claim is minus the computed value: an orientation error;
  *   - the claim equals the value of another gap, band or edge: a mix-up.
  */
-import type { BandGroupReport, GapReport, SheetPortrait } from '../../numerics/portrait.ts';
+import type { BandGroupReport, GapReport, RibbonReport, SheetPortrait } from '../../numerics/portrait.ts';
 import type { GapEvidence } from './certificate.ts';
 import { emptyCertificate } from './certificate.ts';
 import type { NormalizedClaim } from './claims.ts';
 import { gapKey } from './claims.ts';
-import type { SettledInteger } from './evidence.ts';
-import { judgeEstimate } from './evidence.ts';
+import type { CountObservation, SettledInteger } from './evidence.ts';
+import { countAtTwoSizes, countEvidence, judgeEstimate } from './evidence.ts';
 import { formatQuasienergy } from './format.ts';
 import type { VerdictPolicy } from './policy.ts';
 import { gapTolerance } from './policy.ts';
@@ -22,8 +22,21 @@ import { integerVerdict } from './verdict.ts';
 
 const SAME = 1e-6;
 
-export const SIGN_HINT_ORIENTATION = 'sign differs: check the orientation of (a₁, a₂) (the basis must be right-handed)';
-export const SIGN_HINT_EDGE = 'sign differs: check the orientation of (a₁, a₂) or the direction of k_∥';
+/**
+ * C and W are reported in the Cartesian orientation whatever the handedness of
+ * (a₁, a₂) (docs/conventions.md, Orientation), so a flipped sign is not the
+ * basis: it is a claim taken in another orientation or time convention.
+ */
+export const SIGN_HINT_ORIENTATION =
+  'sign differs: C and W are reported in the Cartesian orientation (x̂, ŷ) for either handedness of (a₁, a₂); a value taken in the orientation of the lattice vectors of a left-handed basis, or with time evolution e^{+iHt}, has the opposite sign';
+/** Edge counts are named by the lattice vectors, so for them the handedness does enter (table in docs/conventions.md). */
+export const SIGN_HINT_EDGE = 'sign differs: check the orientation of (a₁, a₂) or the direction of k_∥ (edge-count signs follow the table in docs/conventions.md)';
+
+/**
+ * A sheet portrait with, optionally, the ribbons recomputed at a second width
+ * (verify-model.ts): edge counts are settled only when both widths agree.
+ */
+export type CheckedSheetPortrait = SheetPortrait & { checkRibbons?: RibbonReport[] };
 
 export function sameLabel(a: number, b: number): boolean {
   const d = Math.abs(a - b);
@@ -41,6 +54,33 @@ export function findGap(gaps: GapReport[], label: number): GapReport | undefined
   const exact = gaps.find((g) => sameLabel(g.label, label));
   if (exact) return exact;
   return gaps.find((g) => (g.lower <= g.upper ? label > g.lower && label < g.upper : label > g.lower || label < g.upper));
+}
+
+/** Whether a band group's quasienergy range (which may wrap through π) contains `label`. */
+function bandContains(b: BandGroupReport, label: number): boolean {
+  const [lo, hi] = b.range;
+  return lo <= hi ? label >= lo && label <= hi : label >= lo || label <= hi;
+}
+
+/**
+ * Why a label names no gap: it lies inside a band group (named, with its
+ * range), or in no gap the engine found. Lists the open gaps to choose from.
+ */
+export function noGapReason(source: Pick<GapSource, 'gaps' | 'bands'>, label: number): string {
+  const band = source.bands.find((b) => bandContains(b, label));
+  const open = source.gaps.filter((g) => g.open).sort((a, b) => a.label - b.label).map((g) => formatQuasienergy(g.label));
+  const where = band
+    ? `; it lies in band group ${band.index} (quasienergies ${band.range[0].toFixed(3)} to ${band.range[1].toFixed(3)} π/T)`
+    : '';
+  return `no open gap contains ${formatQuasienergy(label)}${where}; open gaps: ${open.length > 0 ? open.join(', ') : 'none'}`;
+}
+
+function missingGap(source: GapSource, label: number, stage: string): SettledInteger {
+  const certificate = emptyCertificate(stage);
+  certificate.grid = [...source.grid];
+  const why = noGapReason(source, label);
+  certificate.notes.push(why);
+  return { value: null, nearest: null, settled: false, reasons: [why], certificate };
 }
 
 function adjacentWidth(bands: BandGroupReport[], label: number): number {
@@ -84,6 +124,7 @@ export function bandsFromCut(bands: BandGroupReport[], cut: number): BandGroupRe
 
 function windingEvidence(p: SheetPortrait, label: number, policy: VerdictPolicy): SettledInteger {
   const gap = findGap(p.gaps, label);
+  if (!gap) return missingGap(p, label, 'winding');
   const report = gap ? p.windings.find((w) => sameLabel(w.gap, gap.label)) : undefined;
   return judgeEstimate(report?.winding, [gapEvidence(p, label, policy)], policy, 'winding');
 }
@@ -101,29 +142,29 @@ function chernEvidence(p: SheetPortrait, band: BandGroupReport, policy: VerdictP
   return ev;
 }
 
-function edgeEvidence(p: SheetPortrait, label: number, finiteAlong: number, end: 'low' | 'high', policy: VerdictPolicy): SettledInteger {
+function edgeObservation(ribbons: RibbonReport[], gap: GapReport, finiteAlong: number, end: 'low' | 'high'): CountObservation | string {
+  const ribbon = ribbons.find((r) => r.finiteDirection === finiteAlong);
+  if (!ribbon) return `no ribbon finite along a${finiteAlong === 0 ? '₁' : '₂'} was computed`;
+  const count = ribbon.counts.find((c) => sameLabel(c.gap, gap.label) && c.edge === end);
+  if (!count) return `the ribbon spectrum (width ${ribbon.width}) has no count for this gap on the ${end} edge`;
+  return {
+    grid: [ribbon.width, ribbon.momenta.length],
+    count: count.count,
+    settled: count.settled,
+    ...(count.reason !== undefined ? { reason: count.reason } : {}),
+    note: `decay length ≈ ${count.decayLength.toPrecision(3)} cells, ribbon width ${count.width} cells, ${count.crossings.length} edge crossing(s)`,
+  };
+}
+
+/** Signed edge count, settled only when a ribbon 1.5× as wide (checkRibbons) gives the same count. */
+function edgeEvidence(p: CheckedSheetPortrait, label: number, finiteAlong: number, end: 'low' | 'high', policy: VerdictPolicy): SettledInteger {
   const gap = findGap(p.gaps, label);
-  const ribbon = p.ribbons.find((r) => r.finiteDirection === finiteAlong);
-  const count = gap && ribbon ? ribbon.counts.find((c) => sameLabel(c.gap, gap.label) && c.edge === end) : undefined;
-  const certificate = emptyCertificate('ribbon');
+  if (!gap) return missingGap(p, label, 'ribbon');
   const gaps = [gapEvidence(p, label, policy)];
-  certificate.gaps = gaps;
-  const reasons: string[] = [];
-  if (!ribbon) reasons.push(`no ribbon finite along a${finiteAlong === 0 ? '₁' : '₂'} was computed`);
-  else {
-    certificate.grid = [ribbon.width, ribbon.momenta.length];
-    if (!count) reasons.push(`the ribbon spectrum has no count for this gap on the ${end} edge`);
-    else {
-      certificate.notes.push(`decay length ≈ ${count.decayLength.toPrecision(3)} cells, ribbon width ${count.width} cells, ${count.crossings.length} edge crossing(s)`);
-      if (!count.settled || count.count === null) reasons.push(count.reason ?? 'the edge count is unsettled (ribbon too narrow for the decay length)');
-    }
-  }
-  for (const g of gaps) if (!g.open) reasons.push(`the bulk gap at ${formatQuasienergy(g.gap)} is ${g.minimalGap.toPrecision(3)} π/T, not above the tolerance ${g.tolerance.toPrecision(3)} π/T`);
-  certificate.notes.push(...reasons);
-  const nearest = count?.count ?? null;
-  const settled = reasons.length === 0 && nearest !== null;
-  if (nearest !== null) certificate.raw = nearest;
-  return { value: settled ? nearest : null, nearest, settled, reasons, certificate };
+  const unsettled = 'the edge count is unsettled (ribbon too narrow for the decay length)';
+  const first = countEvidence('ribbon', edgeObservation(p.ribbons, gap, finiteAlong, end), gaps, unsettled);
+  const check = p.checkRibbons?.some((r) => r.finiteDirection === finiteAlong) ? countEvidence('ribbon', edgeObservation(p.checkRibbons, gap, finiteAlong, end), gaps, unsettled) : undefined;
+  return countAtTwoSizes(first, check, 'ribbon width');
 }
 
 export interface SheetJudgement {
@@ -145,7 +186,7 @@ export interface PortraitEntry {
   certificate: SettledInteger['certificate'];
 }
 
-export function judgeSheet(p: SheetPortrait, claims: NormalizedClaim[], policy: VerdictPolicy): SheetJudgement {
+export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], policy: VerdictPolicy): SheetJudgement {
   const verdicts: Verdict[] = [];
   const gapLabels = p.gaps.map((g) => g.label);
   const windings = new Map(gapLabels.map((l) => [l, windingEvidence(p, l, policy)]));
@@ -190,7 +231,7 @@ export function judgeSheet(p: SheetPortrait, claims: NormalizedClaim[], policy: 
           // Fewer band groups than claimed bands means a gap the claims rely on is closed (bands
           // touch and merge into one group): the band a claim names is then not a band computed.
           const why = !ordered
-            ? `no open gap was found at the cut ${formatQuasienergy(claim.cut)}`
+            ? `the cut must be an open gap, but ${noGapReason(p, claim.cut)}`
             : `the file claims ${claimedBands} band(s) above the cut at ${formatQuasienergy(claim.cut)}, but ${ordered.length} band group(s) lie between open gaps (bands that touch count as one group; open gaps: ${p.gaps.filter((g) => g.open).map((g) => formatQuasienergy(g.label)).join(', ') || 'none'})`;
           certificate.notes.push(why);
           verdicts.push({
@@ -216,6 +257,8 @@ export function judgeSheet(p: SheetPortrait, claims: NormalizedClaim[], policy: 
         break;
       case 'anomalous':
         break; // judged from the whole portrait (analyse-point.ts)
+      case 'symmetry':
+        break; // the two-dimensional engine computes no symmetry residuals (docs/model-format.md, Claims)
       default:
         verdicts.push(notApplicable(claim, 'a two-dimensional model'));
     }

@@ -2,7 +2,10 @@
  * Verdicts: what the recomputation says about one claim.
  *
  *   confirmed    — the computed value is settled (see evidence.ts) and equals the claim;
- *   contradicted — the computed value is settled and differs from the claim;
+ *   contradicted — the computed value is settled and differs from the claim,
+ *                  or the quantity rests on a declared symmetry that the drive
+ *                  breaks (residual above tolerance: "symmetry broken"), or a
+ *                  declared symmetry operator is not a symmetry of the drive;
  *   unsettled    — the evidence is too weak either way (gap closed or below
  *                  tolerance, refinement not converged, ribbon too narrow,
  *                  quantity ill-defined). A claim is never contradicted on
@@ -33,6 +36,34 @@ export interface Verdict {
   /** A likely cause or next step, when one is recognisable. */
   hint: string | null;
   certificate: Certificate;
+}
+
+/** One symmetry relation checked: its residual and the tolerance it was held to. */
+export interface SymmetryResidual {
+  name: string;
+  residual: number;
+  tolerance: number;
+}
+
+/**
+ * A claimed invariant that rests on a symmetry the drive breaks: the invariant
+ * is not defined, so the claim is contradicted whatever its value (not merely
+ * unsettled: refining grids cannot restore a broken symmetry).
+ */
+export function symmetryBrokenVerdict(claim: NormalizedClaim & { value: number }, gap: number | null, what: string, evidence: SettledInteger, residuals: string): Verdict {
+  return {
+    claim: claim.id,
+    kind: claim.kind,
+    pointer: claim.pointer,
+    gap,
+    claimed: claim.value,
+    certificate: evidence.certificate,
+    outcome: 'contradicted',
+    computed: null,
+    estimate: evidence.nearest,
+    message: `${what} is not defined, symmetry broken: ${residuals}.`,
+    hint: 'the invariant exists only for a drive with the declared symmetry: fix the operator in claims.symmetries or the terms that break it (see the verdict on the symmetry)',
+  };
 }
 
 /** A value the claim may have been meant as, with the words that explain it. */
@@ -79,6 +110,9 @@ export function integerVerdict(
 
 function unsettledHint(reasons: string[]): string | null {
   const text = reasons.join(' ');
+  if (/no open gap contains/.test(text)) return 'name a gap by a quasienergy inside it (units π/T): pick one of the open gaps listed';
+  if (/no chiral or particle–hole symmetry is declared/.test(text)) return 'declare the symmetry the invariant rests on in claims.symmetries (chiral operator with symmetricTimes, or particleHole)';
+  if (/at (ribbon width|chain length) \d+ the count|count changed with the/.test(text)) return 'the count depends on the system size: raise numerics.ribbon.width or numerics.chainLength well beyond the decay length';
   if (/gap at/.test(text)) return 'the model may sit at or near a phase transition; move the parameter point away from it or raise numerics.kGrid';
   if (/ribbon/.test(text)) return 'widen the ribbon (numerics.ribbon.width) well beyond the edge-state decay length';
   if (/refinement|tolerance|single grid/.test(text)) return 'raise numerics.kGrid or numerics.timeSlices so that refinement can settle the integer';

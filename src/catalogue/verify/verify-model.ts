@@ -19,7 +19,9 @@ import { runSweepGrid, type SweepQuantity } from '../sweep/sweep-grid.ts';
 import { ANOMALOUS_DEFINITION } from './anomalous.ts';
 import type { NormalizedClaim } from './claims.ts';
 import { normalizeClaims } from './claims.ts';
-import type { EngineSet } from './engines.ts';
+import type { AnalysisRequest, EngineSet } from './engines.ts';
+import type { ChainView } from './chain-view.ts';
+import type { CheckedSheetPortrait } from './sheet-verdicts.ts';
 import type { VerdictPolicy } from './policy.ts';
 import { DEFAULT_POLICY } from './policy.ts';
 import { analysePoint } from './analyse-point.ts';
@@ -52,6 +54,41 @@ export function quantityEvaluator(parameters: Record<string, number>) {
     const value = evaluateQuantity(quantity, scope, pointer);
     if (isIssue(value)) throw new QuantityProblem(value.pointer, value.message, value.hint, value.offsetInString);
     return value;
+  };
+}
+
+/** The second system size for edge and end counts, as a multiple of the first. */
+export const SECOND_SIZE_FACTOR = 1.5;
+
+/**
+ * Engines that, whenever a ribbon or open chain gave a settled count,
+ * recompute the counts on a ribbon 1.5× as wide or a chain 1.5× as long (same
+ * k grid, bulk invariants skipped) and hand them to the verdicts next to the
+ * first ones (checkRibbons, checkEndModes): a count is settled only when both
+ * sizes agree (evidence.ts, countAtTwoSizes). Plots and records keep the first size.
+ */
+export function withSecondSize(engines: EngineSet): EngineSet {
+  const larger = (n: number) => Math.ceil(SECOND_SIZE_FACTOR * n);
+  return {
+    compile: (model, overrides) => engines.compile(model, overrides),
+    sheet: (compiled, request): CheckedSheetPortrait => {
+      const portrait = engines.sheet(compiled, request);
+      if (request.skip.has('edges') || !portrait.ribbons.some((r) => r.counts.some((c) => c.settled))) return portrait;
+      const check: AnalysisRequest = {
+        ...request,
+        skip: new Set(['chern', 'winding']),
+        ribbonDirections: portrait.ribbons.map((r) => r.finiteDirection),
+        hints: { ...request.hints, ribbon: { ...request.hints?.ribbon, width: larger(Math.max(...portrait.ribbons.map((r) => r.width))) } },
+      };
+      return { ...portrait, checkRibbons: engines.sheet(compiled, check).ribbons };
+    },
+    chain: (compiled, request): ChainView => {
+      const view = engines.chain(compiled, request);
+      if (request.skip.has('edges') || !view.endModes.some((m) => m.settled)) return view;
+      const length = Math.max(...view.endModes.map((m) => m.chainLength));
+      const check: AnalysisRequest = { ...request, hints: { ...request.hints, chainLength: larger(length) } };
+      return { ...view, checkEndModes: engines.chain(compiled, check).endModes };
+    },
   };
 }
 
@@ -93,7 +130,7 @@ export function verifyModel(
   onStep('analysing');
   let point;
   try {
-    point = analysePoint(loaded, claims, engines, policy, { symmetricTimes });
+    point = analysePoint(loaded, claims, withSecondSize(engines), policy, { symmetricTimes });
   } catch (error) {
     if (error instanceof CompileError) {
       const diagnostics = error.issues.map((i) => locatedDiagnostic(loaded, i.pointer, i.message, i.hint, i.offsetInString));

@@ -13,6 +13,12 @@
  *    gap at π is 2·|1 − (θ₁ + θ₂)/π| near θ₁ + θ₂ = π (units π/T). ν₀ = (ν′ + ν″)/2,
  *    ν_π = (ν′ − ν″)/2 (Asbóth & Obuse, PRB 88, 121406(R) (2013)); for θ₂ > θ₁ with
  *    θ₁ + θ₂ > π both |ν₀| and |ν_π| are 1 (from memory, same paper's phase diagram).
+ *  - Two-step chain with an onsite energy ε on orbital a in the first step, Γ = diag(1, −1):
+ *    the hoppings anticommute with Γ and the onsite term commutes, so in the frame t₀ = T/4
+ *    ΓH(t₀+s)Γ† + H(t₀−s) = 2ε|a⟩⟨a| while both times lie in the first step, and 0 while both
+ *    lie in the second (derived here). The engine's residual is max‖…‖_F / max(1, max‖H‖_F)
+ *    (src/numerics/chain/reflection-residual.ts), the largest ‖H‖_F being the intercell step's
+ *    √2·J₂: residual = 2ε / (√2·J₂) with J₂ = 2θ₂/T.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { verifyCatalogue, type CatalogueReport } from '../../../src/catalogue/verify/catalogue.ts';
@@ -61,7 +67,7 @@ describe('verification of purpose-built models', () => {
     expect(record('qwz-sign-error').status).toBe('disputed');
     const v = verdict('qwz-sign-error', 'band-0/chern');
     expect(v).toMatchObject({ outcome: 'contradicted', claimed: -1, computed: 1 });
-    expect(v.hint).toMatch(/^sign differs: check the orientation of \(a₁, a₂\)/);
+    expect(v.hint).toMatch(/^sign differs: C and W are reported in the Cartesian orientation/);
   });
 
   it('recognises a claim made for the wrong gap', () => {
@@ -103,6 +109,33 @@ describe('verification of purpose-built models', () => {
     expect([Math.abs(nu0), Math.abs(nuPi)]).toEqual([1, 1]);
   });
 
+  it('confirms the declared chiral operator of the two-step chain by its residuals', () => {
+    const v = verdict('two-step-chain-correct', 'symmetry/chiral');
+    expect(v).toMatchObject({ kind: 'symmetry', pointer: '/claims/symmetries/chiral/operator', outcome: 'confirmed', computed: true });
+    for (const s of v.certificate.symmetry) expect(s.residual).toBeLessThanOrEqual(s.tolerance);
+    // Every chain certificate carries the residuals, end-mode counts included.
+    expect(verdict('two-step-chain-correct', 'gap-1/end-modes').certificate.symmetry.length).toBe(2);
+  });
+
+  it('contradicts a chiral operator broken by an onsite term, and every claim resting on it, with the residual', () => {
+    const r = record('two-step-chain-onsite');
+    expect(r.status).toBe('disputed');
+    const gamma = verdict('two-step-chain-onsite', 'symmetry/chiral');
+    expect(gamma).toMatchObject({ outcome: 'contradicted', computed: false });
+    const hamiltonian = gamma.certificate.symmetry.find((s) => /H\(t\)/.test(s.name))!;
+    const eps = 0.5, j2 = 2 * 0.7 * Math.PI;
+    const expected = (2 * eps) / (Math.SQRT2 * j2);
+    expect(Math.abs(hamiltonian.residual - expected)).toBeLessThanOrEqual(1e-9 * expected);
+    expect(gamma.message).toContain(`‖ΓH(t₀+s)Γ† + H(t₀−s)‖ = ${expected.toPrecision(3)} > tolerance`);
+    for (const claim of ['gap-0/invariant', 'gap-1/invariant']) {
+      const v = verdict('two-step-chain-onsite', claim);
+      expect(v.outcome).toBe('contradicted');
+      expect(v.message).toMatch(/is not defined, symmetry broken: ‖ΓH\(t₀\+s\)Γ† \+ H\(t₀−s\)‖ = 0\.161 > tolerance 1\.00e-8/);
+    }
+    expect(verdict('two-step-chain-onsite', 'anomalous')).toMatchObject({ outcome: 'contradicted', computed: false });
+    expect(r.anomalous.reason).toMatch(/^symmetry broken/);
+  });
+
   it('recognises frame windings claimed as gap invariants', () => {
     const r = record('two-step-chain-wrong-frame');
     const frames = r.portrait.filter((e) => e.quantity === 'frame-winding');
@@ -118,8 +151,8 @@ describe('verification of purpose-built models', () => {
     const r = record('broken-file');
     expect(r.status).toBe('invalid');
     expect(r.diagnostics[0]).toMatchObject({ file: 'test/fixtures/verification/broken-file.json', line: 10, pointer: '/claims/gaps/0/windnig' });
-    expect(report.records).toHaveLength(8);
-    expect(report.summary.counts).toEqual({ verified: 2, disputed: 3, unsettled: 2, 'portrait-only': 0, invalid: 1, failed: 0 });
+    expect(report.records).toHaveLength(9);
+    expect(report.summary.counts).toEqual({ verified: 2, disputed: 4, unsettled: 2, 'portrait-only': 0, invalid: 1, failed: 0 });
   });
 
   it('writes records and the summary that validate against schemas/report.schema.json', () => {

@@ -3,7 +3,8 @@
  * engines. Values follow published results (cited where used), not our code.
  */
 import type { IntegerEstimate } from '../../../src/numerics/certificates.ts';
-import type { ChernEstimate, SheetPortrait } from '../../../src/numerics/portrait.ts';
+import type { ChernEstimate, RibbonReport } from '../../../src/numerics/portrait.ts';
+import type { CheckedSheetPortrait } from '../../../src/catalogue/verify/sheet-verdicts.ts';
 
 /** An integer estimate refined over two grids, converging to `value` with residual `residual`. */
 export function estimate(value: number, options: { residual?: number; coarse?: number; tolerance?: number; converged?: boolean; caveat?: string } = {}): IntegerEstimate {
@@ -31,22 +32,35 @@ export function chernEstimate(value: number): ChernEstimate {
   return { ...estimate(value), maxPlaquetteFlux: 0.2, fluxThreshold: Math.PI / 3, minimalLinkModulus: 0.9 };
 }
 
+/** A ribbon finite along a₂ of `width` cells with the given signed counts per gap and edge. */
+export function ribbon(width: number, counts: { gap: number; edge: 'low' | 'high'; count: number }[]): RibbonReport {
+  return {
+    finiteDirection: 1, width, edgeCells: 4, momenta: [0, 0.25, 0.5, 0.75], quasienergies: [[-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5]],
+    lowEdgeWeight: [[0, 0], [0, 0], [0, 0], [0, 0]], highEdgeWeight: [[0, 0], [0, 0], [0, 0], [0, 0]],
+    counts: counts.map(({ gap, edge, count }) => ({
+      gap, edge, count, crossings: [{ momentum: 0.5, direction: (count >= 0 ? 1 : -1) as 1 | -1, weight: 0.9 }],
+      decayLength: 1.5, width, settled: true,
+    })),
+  };
+}
+
 /**
  * Two bands separated by gaps at 0 and π/T, as for the five-step checkerboard drive of
  * Rudner, Lindner, Berg, Levin, PRX 3, 031005 (2013) (from memory): at full transfer both
  * bands have C = 0 and both gaps W = 1, with one chiral mode per gap on each edge.
+ * The ribbon is given at width 40 and, as verification recomputes it, at width 60.
  */
-export function twoBandSheet(o: { c?: [number, number]; w?: [number, number]; gap0?: number; gapPi?: number; width?: number; grid?: number } = {}): SheetPortrait {
+export function twoBandSheet(o: { c?: [number, number]; w?: [number, number]; gap0?: number; gapPi?: number; width?: number; grid?: number } = {}): CheckedSheetPortrait {
   const c = o.c ?? [0, 0];
   const w = o.w ?? [1, 1];
   const gap0 = o.gap0 ?? 0.6;
   const gapPi = o.gapPi ?? 0.6;
   const half = (o.width ?? 0.2) / 2;
   const grid = o.grid ?? 48;
-  const edge = (gap: number, edge: 'low' | 'high', count: number) => ({
-    gap, edge, count, crossings: [{ momentum: 0.5, direction: (count >= 0 ? 1 : -1) as 1 | -1, weight: 0.9 }],
-    decayLength: 1.5, width: 40, settled: true,
-  });
+  const counts = [
+    { gap: 0, edge: 'low' as const, count: w[0] }, { gap: 0, edge: 'high' as const, count: -w[0] },
+    { gap: 1, edge: 'low' as const, count: w[1] }, { gap: 1, edge: 'high' as const, count: -w[1] },
+  ];
   return {
     kind: 'sheet',
     grid: [grid, grid],
@@ -62,13 +76,8 @@ export function twoBandSheet(o: { c?: [number, number]; w?: [number, number]; ga
       { gap: 0, winding: estimate(w[0]) },
       { gap: 1, winding: estimate(w[1]) },
     ],
-    ribbons: [
-      {
-        finiteDirection: 1, width: 40, edgeCells: 4, momenta: [0, 0.25, 0.5, 0.75], quasienergies: [[-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5]],
-        lowEdgeWeight: [[0, 0], [0, 0], [0, 0], [0, 0]], highEdgeWeight: [[0, 0], [0, 0], [0, 0], [0, 0]],
-        counts: [edge(0, 'low', w[0]), edge(0, 'high', -w[0]), edge(1, 'low', w[1]), edge(1, 'high', -w[1])],
-      },
-    ],
+    ribbons: [ribbon(40, counts)],
+    checkRibbons: [ribbon(60, counts)],
     consistency: [],
     propagatorAccuracy: 1e-10,
     gapTolerance: 1e-3,

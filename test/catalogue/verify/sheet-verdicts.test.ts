@@ -5,7 +5,7 @@ import { classifySheet } from '../../../src/catalogue/verify/anomalous.ts';
 import { modelStatus } from '../../../src/catalogue/verify/status.ts';
 import { distrustOnInconsistency } from '../../../src/catalogue/verify/analyse-point.ts';
 import type { NormalizedClaim } from '../../../src/catalogue/verify/claims.ts';
-import { estimate, twoBandSheet } from './hand-portraits.ts';
+import { estimate, ribbon, twoBandSheet } from './hand-portraits.ts';
 
 const winding = (gap: number, value: number): NormalizedClaim => ({ kind: 'winding', id: `gap-${gap}/winding`, pointer: `/claims/gaps/${gap}/winding`, gap, value });
 const chern = (band: number, value: number): NormalizedClaim => ({ kind: 'chern', id: `band-${band}/chern`, pointer: `/claims/bands/chern/${band}`, cut: 0, band, value });
@@ -22,11 +22,11 @@ describe('verdicts on a two-dimensional portrait', () => {
     expect(modelStatus(verdicts).status).toBe('verified');
   });
 
-  it('contradicts a flipped sign and says to check the orientation', () => {
+  it('contradicts a flipped sign; for W the basis cannot be the cause (C and W are Cartesian), for edges it can', () => {
     const { verdicts } = judgeSheet(twoBandSheet(), [winding(0, -1), edge(0, 'low', -1)], DEFAULT_POLICY);
     expect(verdicts[0]).toMatchObject({ outcome: 'contradicted', claimed: -1, computed: 1 });
-    expect(verdicts[0].hint).toMatch(/^sign differs: check the orientation of \(a₁, a₂\)/);
-    expect(verdicts[1].hint).toBe('sign differs: check the orientation of (a₁, a₂) or the direction of k_∥');
+    expect(verdicts[0].hint).toMatch(/^sign differs: C and W are reported in the Cartesian orientation \(x̂, ŷ\) for either handedness of \(a₁, a₂\)/);
+    expect(verdicts[1].hint).toMatch(/^sign differs: check the orientation of \(a₁, a₂\) or the direction of k_∥ \(edge-count signs follow the table in docs\/conventions\.md\)$/);
     expect(modelStatus(verdicts).status).toBe('disputed');
   });
 
@@ -77,6 +77,53 @@ describe('verdicts on a two-dimensional portrait', () => {
     expect(classifySheet(chernPhase)).toMatchObject({ classification: 'not-anomalous', reason: 'winding W at ε = π/T is 0' });
     const nearCritical = judgeSheet(twoBandSheet({ gap0: 0 }), [], DEFAULT_POLICY).entries;
     expect(classifySheet(nearCritical).classification).toBe('undetermined');
+  });
+});
+
+describe('claims at a quasienergy that no open gap contains', () => {
+  it('name the band group the label lies in, with its range, and the open gaps', () => {
+    // Band 0 spans 0.4 … 0.6 π/T (width 0.2 around 0.5): ε = 0.45 π/T lies inside it.
+    const p = twoBandSheet();
+    p.gaps = p.gaps.map((g) => ({ ...g, lower: g.label === 0 ? -0.4 : 0.6, upper: g.label === 0 ? 0.4 : -0.6 }));
+    const { verdicts } = judgeSheet(p, [winding(0.45, 1), edge(0.45, 'low', 1)], DEFAULT_POLICY);
+    for (const v of verdicts) {
+      expect(v.outcome).toBe('unsettled');
+      expect(v.message).toContain('no open gap contains ε = 0.45 π/T; it lies in band group 0 (quasienergies 0.400 to 0.600 π/T); open gaps: ε = 0, ε = π/T');
+      expect(v.message).not.toMatch(/not computed by the engine/);
+      expect(v.hint).toMatch(/^name a gap by a quasienergy inside it/);
+    }
+  });
+});
+
+describe('edge counts at two ribbon widths', () => {
+  const counts = (n: number) => [{ gap: 0, edge: 'low' as const, count: n }, { gap: 0, edge: 'high' as const, count: -n }];
+
+  it('are confirmed only when the wider ribbon gives the same count, with both widths in the certificate', () => {
+    const v = judgeSheet(twoBandSheet(), [edge(0, 'low', 1)], DEFAULT_POLICY).verdicts[0];
+    expect(v).toMatchObject({ outcome: 'confirmed', computed: 1 });
+    expect(v.certificate.refinement).toEqual([{ grid: [40, 4], value: 1 }, { grid: [60, 4], value: 1 }]);
+  });
+
+  it('are unsettled when the count changes with the width, or when no second width was computed', () => {
+    const p = twoBandSheet();
+    p.checkRibbons = [ribbon(60, counts(2))];
+    const changed = judgeSheet(p, [edge(0, 'low', 1)], DEFAULT_POLICY).verdicts[0];
+    expect(changed.outcome).toBe('unsettled');
+    expect(changed.message).toMatch(/the count changed with the ribbon width: 1 at 40, 2 at 60/);
+    expect(changed.hint).toMatch(/depends on the system size/);
+    delete p.checkRibbons;
+    const single = judgeSheet(p, [edge(0, 'low', 1)], DEFAULT_POLICY).verdicts[0];
+    expect(single.outcome).toBe('unsettled');
+    expect(single.message).toMatch(/computed at a single ribbon width \(40\)/);
+  });
+
+  it('carry the reason when the wider ribbon leaves the count unsettled', () => {
+    const p = twoBandSheet();
+    const wide = ribbon(60, counts(1));
+    wide.counts[0] = { ...wide.counts[0], settled: false, count: null, reason: 'a crossing state is not localised' };
+    p.checkRibbons = [wide];
+    const v = judgeSheet(p, [edge(0, 'low', 1)], DEFAULT_POLICY).verdicts[0];
+    expect(v.message).toMatch(/at ribbon width 60 the count is unsettled \(a crossing state is not localised\)/);
   });
 });
 
