@@ -467,19 +467,19 @@ export interface BandClaims {
  */
 export interface NumericsHints {
   /**
-   * Starting number of k points per reciprocal direction (one entry per lattice dimension). Default 24 per direction.
+   * Starting number of k points per reciprocal direction (one entry per lattice dimension). Sheets: band grid, and the Chern refinement starts at the largest entry (default 24 per direction). Chains: points of the bulk gap scan (default 128).
    *
    * @minItems 1
    * @maxItems 3
    */
   kGrid?: number[];
   /**
-   * Starting number of time steps per period for segments with time-dependent terms. Default 64.
+   * Starting number of Magnus time slices per period for segments with time-dependent terms; doubling continues until the propagator tolerance is met. Default: about one slice per 2 radians of phase (from the size of H and the drive frequency).
    */
   timeSlices?: number;
   ribbon?: RibbonHints;
   /**
-   * Cells in the open chain used for end modes (1D). Default 80.
+   * Cells in the open chain used for end modes (1D). Default: 10 bulk decay lengths, at most 160.
    */
   chainLength?: number;
   tolerances?: Tolerances;
@@ -489,7 +489,7 @@ export interface NumericsHints {
  */
 export interface RibbonHints {
   /**
-   * Number of cells across the ribbon. Default 40.
+   * Number of cells across the ribbon. Default 24.
    */
   width?: number;
   /**
@@ -497,7 +497,7 @@ export interface RibbonHints {
    */
   finiteAlong?: number;
   /**
-   * Momenta along the edge. Default 96.
+   * Momenta along the edge. Default 200.
    */
   momenta?: number;
 }
@@ -506,15 +506,15 @@ export interface RibbonHints {
  */
 export interface Tolerances {
   /**
-   * Largest accepted distance of a computed invariant from the nearest integer. Default 0.01.
+   * Largest accepted distance of a computed invariant from the nearest integer, for every invariant (Chern numbers, gap winding numbers, chain windings, Z2 indices). At most 0.1: near 0.5 the residual test would accept any number. Defaults: 1e-6 for Chern numbers and chain windings, 1e-3 for gap winding numbers, 0.01 for Z2 indices.
    */
   integer?: number;
   /**
-   * Smallest direct gap (units of pi/T) for a gap to count as open. Default 0.001.
+   * Smallest direct gap (units of pi/T) for a gap to count as open, for sheets and chains. Default 0.001; verdicts never accept a gap below the policy floor (0.001) or the grid-dependent tolerance.
    */
   gap?: number;
   /**
-   * Largest accepted change of quasienergies (units of pi/T) under time-step refinement. Default 1e-6.
+   * Largest accepted change of quasienergies (units of pi/T) under time-slice doubling. Default derived from the other tolerances: gap x min(integer, 0.01) (1e-6 with the defaults); ribbons gap / 100; chains at most 3e-10, because their Floquet symmetry residuals are held to 1e-8.
    */
   propagator?: number;
 }

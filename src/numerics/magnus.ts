@@ -162,14 +162,24 @@ class SparseGenerator {
     for (let k = 1; k <= terms; k++) {
       // next = (−iτ/k) G · term
       const f = tau / k;
-      const tr = term.re, ti = term.im, nr = next.re, ni = next.im;
+      const tr = term.re, ti = term.im, nr = next.re, ni = next.im, ar = acc.re, ai = acc.im;
       for (let r = 0; r < n; r++) {
         const row = r * n;
-        for (let c = 0; c < n; c++) {
-          nr[row + c] = 0;
-          ni[row + c] = 0;
+        const q0 = this.start[r], q1 = this.start[r + 1];
+        if (q0 === q1) {
+          for (let c = 0; c < n; c++) nr[row + c] = ni[row + c] = 0;
+          continue;
         }
-        for (let q = this.start[r]; q < this.start[r + 1]; q++) {
+        // First nonzero writes the row, the others add to it.
+        {
+          const gr = this.re[q0], gi = this.im[q0], src = this.col[q0] * n;
+          for (let c = 0; c < n; c++) {
+            const xr = tr[src + c], xi = ti[src + c];
+            nr[row + c] = gr * xr - gi * xi;
+            ni[row + c] = gr * xi + gi * xr;
+          }
+        }
+        for (let q = q0 + 1; q < q1; q++) {
           const gr = this.re[q], gi = this.im[q], src = this.col[q] * n;
           for (let c = 0; c < n; c++) {
             const xr = tr[src + c], xi = ti[src + c];
@@ -177,16 +187,14 @@ class SparseGenerator {
             ni[row + c] += gr * xi + gi * xr;
           }
         }
-        // Multiply the row by −iτ/k: (x + iy)(−if) = fy − ifx.
+        // Multiply the row by −iτ/k ((x + iy)(−if) = fy − ifx) and add it to the sum.
         for (let c = 0; c < n; c++) {
           const x = nr[row + c], y = ni[row + c];
           nr[row + c] = f * y;
           ni[row + c] = -f * x;
+          ar[row + c] += f * y;
+          ai[row + c] -= f * x;
         }
-      }
-      for (let e = 0; e < nn; e++) {
-        acc.re[e] += nr[e];
-        acc.im[e] += ni[e];
       }
       term = next;
       next = next === a ? b : a;

@@ -55,10 +55,11 @@ export interface SheetOptions {
   ribbon?: SheetRibbonOptions;
   edges?: EdgeCountOptions;
   /**
-   * Time integration of time-dependent segments. Without a tolerance, bands,
-   * Chern numbers and ribbons use verdictPropagatorTolerance(gapTolerance,
-   * winding tolerance) (propagator.ts states the rule); the winding numbers
-   * choose their own unless one is given here.
+   * Time integration of time-dependent segments. Without a tolerance, bands
+   * and Chern numbers use verdictPropagatorTolerance(gapTolerance, winding
+   * tolerance), ribbons verdictPropagatorTolerance(gapTolerance, 1/100)
+   * (propagator.ts states the rule); the winding numbers choose their own
+   * unless one is given here.
    */
   propagator?: PropagatorOptions;
   /** Stages to run (all default true). */
@@ -111,6 +112,8 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   const grid = options.grid ?? DEFAULT_SHEET_GRID;
   const integerTolerance = options.winding?.tolerance ?? DEFAULT_WINDING_TOLERANCE;
   const propagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, integerTolerance) };
+  // Edge counts are counts, not residual-tested integers: only the gap part of the rule applies to ribbons.
+  const ribbonPropagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, 0.01) };
   const chernOptions: ChernOptions = { initialGrid: Math.max(...grid), ...options.chern };
   const sampler = new FloquetSampler(drive, { propagator });
 
@@ -169,7 +172,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
         width: options.ribbon?.width,
         edgeCells: options.ribbon?.edgeCells,
         momenta: options.ribbon?.momenta,
-        propagator,
+        propagator: ribbonPropagator,
       });
       const counts: EdgeCountReport[] = [];
       for (const gap of ordered) counts.push(...countEdgeModes(spectrum, gap, bulkDecayLength(data, gap, direction), options.edges));

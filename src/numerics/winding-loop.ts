@@ -29,7 +29,7 @@ import type { PreparedBloch } from './bloch.ts';
 import { prepareBloch } from './bloch.ts';
 import { CF4_NODES, CF4_WEIGHTS } from './magnus.ts';
 import type { PropagatorOptions } from './propagator.ts';
-import { floquetOperator } from './propagator.ts';
+import { magnusSlicePlan } from './propagator.ts';
 
 export interface LoopPiece {
   /** Index of the drive segment the piece belongs to. */
@@ -82,18 +82,12 @@ export function planLoop(drive: LatticeDrive, bloch: PreparedBloch, slices: numb
 }
 
 /**
- * Magnus slice counts per segment: the largest the propagator chose over the
- * given momenta (1 for constant segments and kicks).
+ * Magnus slice counts per segment, settled once for the drive (propagator.ts,
+ * magnusSlicePlan): at the momenta where ‖H‖ is largest and at the given ones
+ * (1 for constant segments and kicks).
  */
 export function magnusSliceCounts(drive: LatticeDrive, momenta: number[][], options?: PropagatorOptions): number[] {
-  const counts = drive.segments.map(() => 1);
-  const bloch = prepareBloch(drive, new Array(drive.dimension).fill(0));
-  if (drive.segments.every((seg, i) => seg.duration === 0 || bloch.isConstant(i))) return counts;
-  for (const s of momenta) {
-    const p = floquetOperator(drive, s, options);
-    p.slices.forEach((m, i) => (counts[i] = Math.max(counts[i], m)));
-  }
-  return counts;
+  return magnusSlicePlan(drive, options, momenta).slices;
 }
 
 /** Writes the generator of `piece` at the momentum `bloch` was prepared for into `out`. */

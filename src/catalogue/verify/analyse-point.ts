@@ -18,6 +18,10 @@ import type { PortraitEntry } from './sheet-verdicts.ts';
 import { judgeSheet, sameLabel } from './sheet-verdicts.ts';
 import type { Verdict } from './verdict.ts';
 import type { ConsistencyCheck } from '../../numerics/portrait.ts';
+import type { NumericsHints } from '../model-types.generated.ts';
+import { verdictPropagatorTolerance } from '../../numerics/propagator.ts';
+import { DEFAULT_GAP_TOLERANCE } from '../../numerics/gaps.ts';
+import { DEFAULT_WINDING_TOLERANCE } from '../../numerics/winding.ts';
 
 export interface PointResult {
   dimension: number;
@@ -53,6 +57,7 @@ export function analysePoint(
     ...(cutClaim?.kind === 'chern' ? { cut: cutClaim.cut } : {}),
   };
   const dimension = compiled.drive.dimension;
+  const loosened = loosenedTolerances(loaded.document.numerics);
   t = performance.now();
   if (dimension === 2) {
     const portrait = engines.sheet(compiled, request);
@@ -62,6 +67,7 @@ export function analysePoint(
     distrustOnInconsistency(verdicts, entries, portrait.consistency);
     const anomalous = classifySheet(entries);
     finishAnomalousClaims(verdicts, claims, anomalous, 2, entries);
+    noteEverywhere(verdicts, entries, loosened);
     return { dimension, analysis: sheetAnalysis(portrait, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
   }
   if (dimension === 1) {
@@ -73,6 +79,7 @@ export function analysePoint(
     const pi = entries.find((e) => e.quantity === 'gap-invariant' && e.gap !== null && sameLabel(e.gap, 1));
     const anomalous = classifyChain(pi);
     finishAnomalousClaims(verdicts, claims, anomalous, 1, entries);
+    noteEverywhere(verdicts, entries, loosened);
     return { dimension, analysis: chainAnalysis(view, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
   }
   throw new Error(`lattice dimension ${dimension} is not supported (only chains and sheets)`);
@@ -101,6 +108,45 @@ export function distrustOnInconsistency(verdicts: Verdict[], entries: PortraitEn
     e.settled = false;
     e.value = null;
     e.certificate.notes.push(why);
+  }
+}
+
+/** Defaults the tolerance hints are compared with (docs/model-format.md, "Numerics hints"). */
+export const TOLERANCE_DEFAULTS = {
+  /** Strictest default integer tolerance: Chern numbers and chain windings (winding numbers of sheets: 1e-3). */
+  integer: 1e-6,
+  /** Gap tolerance, units π/T. */
+  gap: DEFAULT_GAP_TOLERANCE,
+};
+
+/**
+ * Sentences naming every tolerance the model's numerics hints set looser than
+ * the default: an integer tolerance above the strictest default, a gap
+ * tolerance below the default, a propagator tolerance above the one derived
+ * from the gap and integer tolerances (propagator.ts).
+ */
+export function loosenedTolerances(hints: NumericsHints | undefined): string[] {
+  const t = hints?.tolerances;
+  if (!t) return [];
+  const notes: string[] = [];
+  const g = (x: number) => Number(x.toPrecision(3)).toString();
+  if (t.integer !== undefined && t.integer > TOLERANCE_DEFAULTS.integer) {
+    notes.push(`the model loosens numerics.tolerances.integer to ${g(t.integer)} (defaults: 1e-6 for Chern numbers and chain windings, 1e-3 for gap winding numbers)`);
+  }
+  if (t.gap !== undefined && t.gap < TOLERANCE_DEFAULTS.gap) {
+    notes.push(`the model loosens numerics.tolerances.gap to ${g(t.gap)} π/T (default ${g(TOLERANCE_DEFAULTS.gap)} π/T; verdicts still require the policy's gap floor)`);
+  }
+  if (t.propagator !== undefined) {
+    const derived = verdictPropagatorTolerance(t.gap ?? TOLERANCE_DEFAULTS.gap, t.integer ?? DEFAULT_WINDING_TOLERANCE) / Math.PI;
+    if (t.propagator > derived) notes.push(`the model loosens numerics.tolerances.propagator to ${g(t.propagator)} π/T (derived default ${g(derived)} π/T)`);
+  }
+  return notes;
+}
+
+function noteEverywhere(verdicts: Verdict[], entries: PortraitEntry[], notes: string[]): void {
+  if (notes.length === 0) return;
+  for (const c of [...verdicts.map((v) => v.certificate), ...entries.map((e) => e.certificate)]) {
+    for (const note of notes) if (!c.notes.includes(note)) c.notes.push(note);
   }
 }
 

@@ -14,8 +14,21 @@ import { integerEstimate } from '../../numerics/certificates.ts';
 import type { ChainPortrait, ChainSymmetryReport } from '../../numerics/portrait.ts';
 import { analyseChain, type ChainAnalysisOptions } from '../../numerics/chain/chain-analysis.ts';
 import type { AnalysisRequest } from './engines.ts';
+import { propagatorHints } from './engines.ts';
 import type { ChainInvariant, ChainView } from './chain-view.ts';
 import { wrapLabel } from './claims.ts';
+import { verdictPropagatorTolerance } from '../../numerics/propagator.ts';
+import { DEFAULT_GAP_TOLERANCE } from '../../numerics/gaps.ts';
+import { DEFAULT_POLICY } from './policy.ts';
+
+
+/**
+ * Chains hold the Floquet-operator symmetry residuals (‖ΓUΓ† − U†‖ and the
+ * like) to the policy's symmetry tolerance, 10⁻⁸: the time integration, whose
+ * error enters those residuals directly, is held to a tenth of that on top of
+ * the rule for gaps and integers.
+ */
+export const CHAIN_SYMMETRY_PROPAGATOR_TOLERANCE = DEFAULT_POLICY.symmetryTolerance / 10;
 
 export function chainOptions(request: AnalysisRequest): ChainAnalysisOptions {
   const hints = request.hints;
@@ -24,12 +37,27 @@ export function chainOptions(request: AnalysisRequest): ChainAnalysisOptions {
   // Sweeps map bulk quantities only: no open chain, so no end modes and no bulk–end relations there.
   if (request.skip.has('edges')) options.run = { openChain: false };
   if (hints?.kGrid?.[0] !== undefined) options.gapGrid = hints.kGrid[0];
-  if (hints?.tolerances?.propagator !== undefined) options.propagator = { tolerance: Math.PI * hints.tolerances.propagator };
+  const derived = Math.min(
+    verdictPropagatorTolerance(hints?.tolerances?.gap ?? DEFAULT_GAP_TOLERANCE, hints?.tolerances?.integer ?? DEFAULT_CHAIN_INTEGER_TOLERANCE),
+    CHAIN_SYMMETRY_PROPAGATOR_TOLERANCE,
+  );
+  options.propagator = { tolerance: derived, ...propagatorHints(hints) };
   return options;
 }
 
+/** Default accepted |ν − round ν| of the frame windings (phase-winding.ts). */
+export const DEFAULT_CHAIN_INTEGER_TOLERANCE = 1e-6;
+
 export function analyseChainView(compiled: CompiledModel, request: AnalysisRequest): ChainView {
-  return chainView(analyseChain(compiled.drive, compiled.symmetries, chainOptions(request)));
+  const hints = request.hints;
+  const view = chainView(analyseChain(compiled.drive, compiled.symmetries, chainOptions(request)), hints?.tolerances?.integer);
+  if (hints?.tolerances?.gap !== undefined) view.gapTolerance = hints.tolerances.gap;
+  return view;
+}
+
+/** The estimate held to another integer tolerance; `stable` as the engine judged it (refinement and caveats stay). */
+function withTolerance(e: IntegerEstimate, tolerance: number, stable: boolean): IntegerEstimate {
+  return integerEstimate(e.raw, tolerance, e.grid, e.history, stable, e.caveat);
 }
 
 function symmetryEntries(reports: ChainSymmetryReport[], which: ChainSymmetryReport['symmetry'][]) {
@@ -41,14 +69,27 @@ function symmetryEntries(reports: ChainSymmetryReport[], which: ChainSymmetryRep
     ]);
 }
 
+/** Accepted residual of a Z₂ index when the model sets none (the value is exactly 0 or 1; the margin is the evidence). */
+const DEFAULT_Z2_TOLERANCE = 0.01;
+
 /** A Z₂ index from a sign with a margin, as an IntegerEstimate (no refinement: the margin is the evidence). */
-function z2Estimate(sign: 1 | -1 | null, margin: number, tolerance: number, gridSize: number): IntegerEstimate {
+function z2Estimate(sign: 1 | -1 | null, margin: number, tolerance: number, gridSize: number, integerTolerance = DEFAULT_Z2_TOLERANCE): IntegerEstimate {
   const value = sign === -1 ? 1 : 0;
   const caveat = sign === null ? `the Pfaffian-sign margin ${margin.toPrecision(3)} is below its tolerance ${tolerance.toPrecision(3)}` : undefined;
-  return integerEstimate(sign === null ? NaN : value, 0.01, [gridSize], [{ grid: [gridSize], value: sign === null ? NaN : value }], sign !== null, caveat);
+  return integerEstimate(sign === null ? NaN : value, integerTolerance, [gridSize], [{ grid: [gridSize], value: sign === null ? NaN : value }], sign !== null, caveat);
 }
 
-export function chainView(p: ChainPortrait): ChainView {
+/**
+ * The ChainView of a portrait. With `integerTolerance` (numerics.tolerances.integer)
+ * every frame winding, ν₀, ν_π and Z₂ index is held to it instead of the engine's default.
+ */
+export function chainView(p: ChainPortrait, integerTolerance?: number): ChainView {
+  // Frame windings are sums of phase steps: their only stability test is the residual (phase-winding.ts).
+  const frameEstimates = (p.chiral?.status === 'computed' ? p.chiral.frames : []).map((f) =>
+    integerTolerance === undefined ? f.winding : withTolerance(f.winding, integerTolerance, true),
+  );
+  const framesConverged = frameEstimates.length > 0 && frameEstimates.every((e) => e.converged);
+  const combined = (e: IntegerEstimate): IntegerEstimate => (integerTolerance === undefined ? e : withTolerance(e, integerTolerance, framesConverged));
   const gaps = p.gaps.map((g) => ({
     label: g.label,
     lower: wrapLabel(g.lower),
@@ -64,19 +105,20 @@ export function chainView(p: ChainPortrait): ChainView {
   const invariants: ChainInvariant[] = [];
   const chiralSymmetry = symmetryEntries(p.symmetries, p.chiral?.source === 'declared' ? ['chiral'] : ['time-reversal', 'particle-hole']);
   if (p.chiral?.status === 'computed') {
-    if (p.chiral.zero) invariants.push({ gap: 0, kind: 'winding', estimate: p.chiral.zero, symmetry: chiralSymmetry, fromFrames: true });
-    if (p.chiral.pi) invariants.push({ gap: 1, kind: 'winding', estimate: p.chiral.pi, symmetry: chiralSymmetry, fromFrames: true });
+    if (p.chiral.zero) invariants.push({ gap: 0, kind: 'winding', estimate: combined(p.chiral.zero), symmetry: chiralSymmetry, fromFrames: true });
+    if (p.chiral.pi) invariants.push({ gap: 1, kind: 'winding', estimate: combined(p.chiral.pi), symmetry: chiralSymmetry, fromFrames: true });
   }
   if (p.majorana?.status === 'computed' && invariants.length === 0) {
     const ph = symmetryEntries(p.symmetries, ['particle-hole']);
     const points = p.majorana.momenta.length;
-    invariants.push({ gap: 0, kind: 'z2', estimate: z2Estimate(p.majorana.zero, p.majorana.zeroMargin, p.majorana.tolerance, points), symmetry: ph, signDecided: true });
-    invariants.push({ gap: 1, kind: 'z2', estimate: z2Estimate(p.majorana.pi, p.majorana.piMargin, p.majorana.tolerance, points), symmetry: ph, signDecided: true });
+    const z2 = (sign: 1 | -1 | null, margin: number) => z2Estimate(sign, margin, p.majorana!.tolerance, points, integerTolerance);
+    invariants.push({ gap: 0, kind: 'z2', estimate: z2(p.majorana.zero, p.majorana.zeroMargin), symmetry: ph, signDecided: true });
+    invariants.push({ gap: 1, kind: 'z2', estimate: z2(p.majorana.pi, p.majorana.piMargin), symmetry: ph, signDecided: true });
   }
   const frames = (p.chiral?.status === 'computed' ? p.chiral.frames : []).slice(0, 2).map((f, i) => ({
     time: f.frameTime,
     name: (i === 0 ? 'first' : 'second') as 'first' | 'second',
-    estimate: f.winding,
+    estimate: frameEstimates[i],
   }));
   const chain = p.openChain;
   const endModes = (chain?.modes ?? []).map((m) => {

@@ -8,6 +8,7 @@ import type { LoadedModel } from '../load.ts';
 import type { NumericsHints } from '../model-types.generated.ts';
 import type { SheetPortrait } from '../../numerics/portrait.ts';
 import type { ChainView } from './chain-view.ts';
+import type { PropagatorOptions } from '../../numerics/propagator.ts';
 
 /** What a caller needs from the engines for one parameter point. */
 export interface AnalysisRequest {
@@ -28,4 +29,18 @@ export interface EngineSet {
   compile(model: LoadedModel, overrides?: Record<string, number>): CompiledModel;
   sheet(compiled: CompiledModel, request: AnalysisRequest): SheetPortrait;
   chain(compiled: CompiledModel, request: AnalysisRequest): ChainView;
+}
+
+/**
+ * Time-integration options from the hints: numerics.timeSlices is the starting
+ * slice count per period; numerics.tolerances.propagator (units π/T) replaces
+ * the tolerance the engines derive from the gap and integer tolerances
+ * (propagator.ts, verdictPropagatorTolerance). The propagator works in
+ * eigenphases (ε·T), hence the factor π.
+ */
+export function propagatorHints(hints: NumericsHints | undefined): PropagatorOptions | undefined {
+  const options: PropagatorOptions = {};
+  if (hints?.timeSlices !== undefined) options.startSlices = hints.timeSlices;
+  if (hints?.tolerances?.propagator !== undefined) options.tolerance = Math.PI * hints.tolerances.propagator;
+  return Object.keys(options).length > 0 ? options : undefined;
 }

@@ -6,6 +6,7 @@
 import { compileModel } from '../compile.ts';
 import { analyseSheet, type SheetOptions } from '../../numerics/sheet-analysis.ts';
 import type { AnalysisRequest, EngineSet } from './engines.ts';
+import { propagatorHints } from './engines.ts';
 import { analyseChainView } from './chain-adapter.ts';
 
 /** Default ribbon direction when no claim names one (the schema's default: finite along a₂). */
@@ -22,11 +23,16 @@ export function sheetOptions(request: AnalysisRequest): SheetOptions {
       ...(hints?.ribbon?.momenta !== undefined ? { momenta: hints.ribbon.momenta } : {}),
     },
   };
+  // The Chern refinement starts at this grid too (sheet-analysis.ts).
   if (hints?.kGrid) options.grid = hints.kGrid.length >= 2 ? hints.kGrid.slice(0, 2) : [hints.kGrid[0], hints.kGrid[0]];
   if (hints?.tolerances?.gap !== undefined) options.gapTolerance = hints.tolerances.gap;
-  if (hints?.tolerances?.integer !== undefined) options.chern = { tolerance: hints.tolerances.integer };
-  // Model files give the propagator tolerance in units of π/T; the propagator wants eigenphases (ε·T).
-  if (hints?.tolerances?.propagator !== undefined) options.propagator = { tolerance: Math.PI * hints.tolerances.propagator };
+  const integer = hints?.tolerances?.integer;
+  if (integer !== undefined) {
+    options.chern = { tolerance: integer };
+    options.winding = { tolerance: integer };
+  }
+  const propagator = propagatorHints(hints);
+  if (propagator !== undefined) options.propagator = propagator;
   if (request.cut !== undefined) options.cut = request.cut;
   return options;
 }

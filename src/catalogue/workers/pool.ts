@@ -2,7 +2,8 @@
  * A small pool of worker threads that runs one task per model.
  *
  * - Size defaults to os.availableParallelism(); size 0 runs tasks in the
- *   calling thread (no time limit can be enforced there).
+ *   calling thread. A busy thread cannot be interrupted from inside, so when a
+ *   time limit is given, size 0 becomes one worker thread: the limit always holds.
  * - Each task gets a time limit counted from the moment a ready worker takes
  *   it; on expiry the worker is terminated, the task is reported as timed out
  *   and a fresh worker takes the next task.
@@ -31,7 +32,7 @@ export interface PoolOptions {
   entry: string;
   /** Number of worker threads; 0 runs in the calling thread. Default os.availableParallelism(). */
   size?: number;
-  /** Per-task time limit in milliseconds (ignored when size is 0). */
+  /** Per-task time limit in milliseconds; with a limit, size 0 runs one worker thread instead of the calling thread. */
   timeLimitMs?: number;
   /** Called when a task starts and at each progress note it sends. */
   onProgress?: (index: number, step: string) => void;
@@ -72,7 +73,9 @@ async function runInline<T, R>(tasks: T[], options: PoolOptions): Promise<TaskOu
 }
 
 export async function runTasks<T, R>(tasks: T[], options: PoolOptions): Promise<TaskOutcome<R>[]> {
-  const size = Math.min(options.size ?? defaultPoolSize(), tasks.length);
+  const limited = options.timeLimitMs !== undefined && options.timeLimitMs > 0;
+  const requested = options.size ?? defaultPoolSize();
+  const size = Math.min(requested <= 0 && limited ? 1 : requested, tasks.length);
   if (tasks.length === 0) return [];
   if (size <= 0) return runInline<T, R>(tasks, options);
 

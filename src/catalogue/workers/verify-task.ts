@@ -12,6 +12,7 @@ import type { VerdictPolicy } from '../verify/policy.ts';
 import type { ModelOutcome } from '../verify/verify-model.ts';
 import { verifyModel } from '../verify/verify-model.ts';
 import { realEngines } from '../verify/real-engines.ts';
+import { statusStep } from './status-step.ts';
 
 export interface VerifyTask {
   model: LoadedModel;
@@ -20,7 +21,11 @@ export interface VerifyTask {
 }
 
 export function makeHandler(engines: EngineSet) {
-  return (task: VerifyTask, report: (step: string) => void = () => {}): ModelOutcome => verifyModel(task.model, engines, task.engine, task.policy, report);
+  return (task: VerifyTask, report: (step: string) => void = () => {}): ModelOutcome => {
+    const outcome = verifyModel(task.model, engines, task.engine, task.policy, report);
+    report(statusStep(outcome.record.status));
+    return outcome;
+  };
 }
 
 export const handleTask = makeHandler(realEngines);

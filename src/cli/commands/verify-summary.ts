@@ -19,6 +19,7 @@ import { reportProblems } from '../../catalogue/records/report-validation.ts';
 import { exitCodeFor } from '../../catalogue/verify/status.ts';
 import { junitXml, type JunitSuite } from '../../catalogue/junit.ts';
 import { parseShard, ShardSpecError, type ShardSpec } from '../../catalogue/shard.ts';
+import { modelStatusOfStep } from '../../catalogue/workers/status-step.ts';
 
 /** Where commands write: process.stdout / process.stderr fit this shape. */
 export interface CliIO {
@@ -41,10 +42,12 @@ export interface CheckOptions {
 }
 
 export const describeCheckOptions = `Options of strobe check (verification):
-  --workers N      worker threads (default: number of cores; 0 = run in this process)
+  --workers N      worker threads (default: number of cores; 0 = run in this process,
+                   except with --time-limit, which needs a worker thread: then one is used)
   --no-cache       recompute every model (default: reuse .strobe-cache/ for unchanged models)
   --shard i/n      verify only shard i of n (split by a hash of the model id) for parallel CI jobs
-  --time-limit S   give up on a model after S seconds and report it as failed
+  --time-limit S   give up on a model after S seconds and report it as failed (enforced
+                   for every --workers value: the model runs in a worker thread)
   --strict         also fail when a model is unsettled
   --json           print the catalogue summary as JSON instead of the table
   --junit FILE     also write a JUnit XML report (one test case per claim)
@@ -119,7 +122,8 @@ const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
 /**
  * Progress reporter: on a terminal, one line rewritten in place with the model
  * being computed, its step and the elapsed time (refreshed twice a second);
- * otherwise one plain line per finished model, which logs read well.
+ * otherwise one plain line per finished model with its status
+ * ("[1/1] kick-qwz: unsettled in 4.0 s"), which logs read well.
  */
 export function progressReporter(io: CliIO, refreshMs = 500): { onProgress: (e: ProgressEvent) => void; finish: () => void } {
   const tty = io.stdout.isTTY === true;
@@ -127,6 +131,7 @@ export function progressReporter(io: CliIO, refreshMs = 500): { onProgress: (e: 
   let width = 0;
   let current: { event: ProgressEvent; at: number } | undefined;
   let timer: NodeJS.Timeout | undefined;
+  const statuses = new Map<string, string>();
   const render = (e: ProgressEvent, extraMs = 0) => {
     const line = `[${done}/${e.total}] ${e.id}: ${e.step} ${seconds(e.elapsedMs + extraMs)}`;
     io.stdout.write(`\r${line.padEnd(width)}`);
@@ -134,6 +139,11 @@ export function progressReporter(io: CliIO, refreshMs = 500): { onProgress: (e: 
   };
   return {
     onProgress(e) {
+      const status = modelStatusOfStep(e.step);
+      if (status !== undefined) {
+        statuses.set(e.id, status);
+        return;
+      }
       const finished = e.step === 'done' || e.step === 'cached' || e.step === 'timed-out' || e.step === 'crashed' || e.step === 'threw';
       if (finished) done++;
       if (tty) {
@@ -146,7 +156,10 @@ export function progressReporter(io: CliIO, refreshMs = 500): { onProgress: (e: 
           timer.unref();
         }
       } else if (finished) {
-        io.stdout.write(`[${done}/${e.total}] ${e.id}: ${e.step === 'done' ? 'verified in' : e.step} ${e.step === 'cached' ? '(unchanged)' : seconds(e.elapsedMs)}\n`);
+        // A finished model is named with its status ("unsettled in 4.0 s"), when its task reported one.
+        const status = statuses.get(e.id);
+        const what = e.step === 'done' ? `${status ?? 'done'} in` : e.step;
+        io.stdout.write(`[${done}/${e.total}] ${e.id}: ${what} ${e.step === 'cached' ? '(unchanged)' : seconds(e.elapsedMs)}\n`);
       }
     },
     finish() {

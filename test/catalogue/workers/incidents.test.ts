@@ -4,6 +4,7 @@ import { verifyCatalogue, type ProgressEvent } from '../../../src/catalogue/veri
 import { reportProblems } from '../../../src/catalogue/records/report-validation.ts';
 import { canonicalJson } from '../../../src/catalogue/records/canonical-json.ts';
 import { progressReporter, summaryTable } from '../../../src/cli/commands/verify-summary.ts';
+import { statusStep } from '../../../src/catalogue/workers/status-step.ts';
 
 const files = ['two-step-chain-correct', 'two-step-chain-wrong-frame', 'qwz-sign-error'].map((id) => `test/fixtures/verification/${id}.json`);
 
@@ -34,15 +35,24 @@ describe('models that hang or crash', () => {
 
 describe('progress lines', () => {
   const event = (step: string, id = 'm-1'): ProgressEvent => ({ id, index: 0, total: 2, step, elapsedMs: 1500 });
-  it('are plain lines per finished model when not on a terminal', () => {
+  it('are plain lines per finished model, naming its status, when not on a terminal', () => {
     const out: string[] = [];
     const p = progressReporter({ stdout: { write: (t: string) => out.push(t) }, stderr: { write: () => {} } });
     p.onProgress(event('started'));
     p.onProgress(event('analysing'));
+    p.onProgress(event(statusStep('unsettled')));
     p.onProgress(event('done'));
     p.onProgress(event('cached', 'm-2'));
     p.finish();
-    expect(out).toEqual(['[1/2] m-1: verified in 1.5 s\n', '[2/2] m-2: cached (unchanged)\n']);
+    expect(out).toEqual(['[1/2] m-1: unsettled in 1.5 s\n', '[2/2] m-2: cached (unchanged)\n']);
+  });
+
+  it('say "done" for a finished task that reported no status, never "verified"', () => {
+    const out: string[] = [];
+    const p = progressReporter({ stdout: { write: (t: string) => out.push(t) }, stderr: { write: () => {} } });
+    p.onProgress(event('done'));
+    p.finish();
+    expect(out).toEqual(['[1/2] m-1: done in 1.5 s\n']);
   });
   it('rewrite one line on a terminal with model, step and elapsed time', () => {
     const out: string[] = [];

@@ -22,6 +22,13 @@ describe('worker pool', () => {
     expect(outcomes[2]).toMatchObject({ state: 'done', result: 25 });
   });
 
+  it('enforces a time limit with size 0 too, by running the tasks in a worker thread', async () => {
+    const tasks: SampleTask[] = [{ kind: 'hang' }, { kind: 'square', x: 4 }];
+    const outcomes = await runTasks<SampleTask, number>(tasks, { entry, size: 0, timeLimitMs: 1500 });
+    expect(outcomes[0]).toMatchObject({ state: 'timed-out', message: 'timed out after 1.5 s' });
+    expect(outcomes[1]).toMatchObject({ state: 'done', result: 16 });
+  });
+
   it('reports a worker that dies or a task that throws, and the rest still finish', async () => {
     const tasks: SampleTask[] = [{ kind: 'exit' }, { kind: 'square', x: 2 }, { kind: 'throw' }, { kind: 'square', x: 6 }];
     const progress: string[] = [];
