@@ -136,11 +136,14 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     }
     return { gap: m.label, count: settled ? m.low : null, settled, ...(reason !== undefined ? { reason } : {}), chainLength: chain!.cells, decayLength: decay };
   });
+  // Why no invariant was computed, when none was: the engine's own words.
+  const invariantNote = invariants.length === 0 ? (p.chiral?.reason ?? p.majorana?.reason) : undefined;
   return {
     grid: [p.gapGrid],
     gaps,
     bands: [],
     invariants,
+    ...(invariantNote !== undefined ? { invariantNote } : {}),
     frames,
     endModes,
     openChain: chain ? { length: chain.cells, quasienergies: chain.quasienergies, lowEdgeWeight: chain.lowEdgeWeight, highEdgeWeight: chain.highEdgeWeight } : null,
