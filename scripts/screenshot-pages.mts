@@ -1,3 +1,9 @@
+/**
+ * Screenshots of the built site for a person to look at:
+ *   npx tsx scripts/screenshot-pages.mts "<path>=<name>[=<css selector>]" …
+ * serves dist/ on 127.0.0.1, opens each path in Debian Chromium and writes
+ * /tmp/<name>.png (the whole page, or the last element matching the selector).
+ */
 import { chromium } from 'playwright-core';
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
