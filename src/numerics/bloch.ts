@@ -15,6 +15,7 @@ import type { ComplexMatrix } from './linalg/complex-matrix.ts';
 import { zeros } from './linalg/complex-matrix.ts';
 import type { DriveSegment, LatticeDrive, Modulation, VectorPotentialComponent } from './drive.ts';
 import { angularFrequency, segmentStartTimes } from './drive.ts';
+import { ComponentFinder } from './linalg/connected-components.ts';
 
 interface CompiledTerm {
   from: number;
@@ -312,22 +313,10 @@ export function compileConstantDrive(drive: LatticeDrive): ConstantDrive | null 
 
 /** Connected components of the graph whose edges are the hopping terms of a segment, each sorted ascending. */
 function bondBlocks(n: number, terms: CompiledTerm[]): number[][] {
-  const parent = Array.from({ length: n }, (_, i) => i);
-  const find = (i: number): number => {
-    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
-    return i;
-  };
+  const finder = new ComponentFinder(n);
   for (const t of terms) {
     if (t.onsite || t.from === t.to) continue;
-    const a = find(t.from), b = find(t.to);
-    if (a !== b) parent[Math.max(a, b)] = Math.min(a, b);
+    finder.join(t.from, t.to);
   }
-  const groups = new Map<number, number[]>();
-  for (let i = 0; i < n; i++) {
-    const root = find(i);
-    const g = groups.get(root);
-    if (g) g.push(i);
-    else groups.set(root, [i]);
-  }
-  return [...groups.values()];
+  return finder.components();
 }

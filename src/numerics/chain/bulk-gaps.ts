@@ -32,31 +32,10 @@ import type { PropagatorOptions } from '../propagator.ts';
 import type { Propagation } from '../propagator.ts';
 import { floquetOperator, prepareFloquet } from '../propagator.ts';
 import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
+import type { ChainGapReport } from '../portrait.ts';
 
-export interface ChainGap {
-  /** 0 or 1 (units π/T). */
-  label: 0 | 1;
-  /**
-   * Minimal direct gap (units π/T): min over k of the distance between the two
-   * eigenphases bounding the label. When a bulk state reaches the label (the
-   * gap is closed) it is reported as 2 × clearance, below twice the tolerance.
-   */
-  minimalGap: number;
-  /** Reduced momentum in [0, 1) where the minimal direct gap occurs. */
-  momentumAtMinimum: number;
-  /** Edges of the arc free of bulk states around the label (units π/T, wrapped into (−1, 1]). */
-  lower: number;
-  upper: number;
-  /** Width of that arc: the indirect gap (units π/T). */
-  arcWidth: number;
-  /** Distance from the label to the nearest bulk quasienergy (units π/T), and where (reduced momentum). */
-  clearance: number;
-  clearanceMomentum: number;
-  /** clearance > gapTolerance. */
-  open: boolean;
-  /** Decay length estimate of end states in this gap, v_max / clearance (cells; Infinity when closed). */
-  decayLengthEstimate: number;
-}
+/** A chain's gap at 0 or π/T: the record the chain portrait carries (fields documented in portrait.ts). */
+export type ChainGap = ChainGapReport;
 
 /** Eigenphases φ ∈ (−π, π] of U(s, T) and the propagator's accuracy bound. */
 export interface PhaseSample {

@@ -14,6 +14,7 @@ import type { ComplexMatrix } from './complex-matrix.ts';
 import { zeros } from './complex-matrix.ts';
 import { assertHermitian } from './checks.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
+import { ComponentFinder } from './connected-components.ts';
 
 export function expMinusIHt(h: ComplexMatrix, t: number): ComplexMatrix {
   return prepareExponential(h)(t);
@@ -71,32 +72,14 @@ export function exp2x2(a: number, d: number, bRe: number, bIm: number, t: number
 /** Connected components of the graph with an edge i–j wherever H_ij ≠ 0 or H_ji ≠ 0; each sorted ascending. */
 export function connectedBlocks(h: ComplexMatrix): number[][] {
   const n = h.rows;
-  const parent = new Int32Array(n);
-  for (let i = 0; i < n; i++) parent[i] = i;
-  const find = (i: number): number => {
-    while (parent[i] !== i) {
-      parent[i] = parent[parent[i]];
-      i = parent[i];
-    }
-    return i;
-  };
+  const finder = new ComponentFinder(n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < i; j++) {
       const p = i * n + j, q = j * n + i;
-      if (h.re[p] !== 0 || h.im[p] !== 0 || h.re[q] !== 0 || h.im[q] !== 0) {
-        const ri = find(i), rj = find(j);
-        if (ri !== rj) parent[Math.max(ri, rj)] = Math.min(ri, rj);
-      }
+      if (h.re[p] !== 0 || h.im[p] !== 0 || h.re[q] !== 0 || h.im[q] !== 0) finder.join(i, j);
     }
   }
-  const groups = new Map<number, number[]>();
-  for (let i = 0; i < n; i++) {
-    const root = find(i);
-    const g = groups.get(root);
-    if (g) g.push(i);
-    else groups.set(root, [i]);
-  }
-  return [...groups.values()];
+  return finder.components();
 }
 
 type BlockApplier = (t: number, out: ComplexMatrix) => void;
