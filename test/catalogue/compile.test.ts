@@ -72,7 +72,7 @@ describe('compileModel', () => {
       [0, 0, [1, 0]], [1, 1, [1, 0]], [0, 0, [0, 1]], [1, 1, [0, 1]], [0, 1, [1, 0]], [0, 1, [-1, 0]], [0, 1, [0, 1]], [0, 1, [0, -1]],
     ]);
     expect(drive.segments[0].terms[6].amplitude).toEqual({ re: 0, im: 0.5 });
-    expect(drive.period).toBe(1);
+    expect(drive.period).toBe(byId('qwz-sheet').parameters.T); // the period is the evaluated parameter T
     expect(drive.latticeVectors).toEqual([[1, 0], [0, 1]]);
   });
 

@@ -100,8 +100,17 @@ function sweepPoint(
       out[`gap-${gapKey(label)}/minimal-gap`] = gap ? gap.minimalGap : 0;
     }
   }
+  // Band numbers count upward from the cut and between the model's gaps. Where the cut gap is
+  // closed the engine counts from another gap, and where one of the model's gaps is closed two
+  // bands merge into one group: "band 0" would then name something else, so such points are
+  // unsettled rather than showing the Chern number of a different group.
+  const cutClaim = claims.find((c) => c.kind === 'chern');
+  const requestedCut = cutClaim?.kind === 'chern' ? cutClaim.cut : 1;
+  const engineCut = result.analysis.facts['cut'];
+  const modelGapsOpen = gapLabels.every((label) => result.analysis.gaps.some((g) => sameLabel(g.label, label) && g.open));
+  const cutHolds = engineCut !== undefined && sameLabel(engineCut, requestedCut) && modelGapsOpen;
   for (const e of result.entries) {
-    if (quantities.includes('chern') && e.quantity === 'chern') out[e.id] = e.value;
+    if (quantities.includes('chern') && e.quantity === 'chern') out[e.id] = cutHolds ? e.value : null;
     if (quantities.includes('winding') && e.quantity === 'winding') out[e.id] = e.value;
     if (quantities.includes('invariant') && e.quantity === 'gap-invariant') out[e.id] = e.value;
   }

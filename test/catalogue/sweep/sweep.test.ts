@@ -67,4 +67,14 @@ describe('parameter sweeps', () => {
     });
     await expect(runSweep(chain, [], ['minimalGap'], { cache: false })).rejects.toThrow(SweepRequestError);
   });
+
+  it('maps QWZ Chern numbers with the sign flip at m = 0 and leaves points where a gap of the model closes unsettled', async () => {
+    // Qi, Wu, Zhang, PRB 74, 085308 (2006) (from memory): |C| = 1 for 0 < |m| < 2 with opposite signs on the
+    // two sides of m = 0; the gap at ε = 0 closes at m = 0, where "band 0" stops being one band.
+    const s = await runSweep('test/fixtures/verification/qwz-correct.json', [{ name: 'm', start: -1, stop: 1, count: 3 }], ['chern'], { cache: false });
+    const lower = s.points.map((p) => p.values['band-0/chern']);
+    expect(lower[1]).toBeNull();
+    expect(Math.abs(lower[0] as number)).toBe(1);
+    expect(lower[2]).toBe(-(lower[0] as number));
+  });
 });
