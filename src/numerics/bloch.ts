@@ -157,6 +157,23 @@ function timeFactorTable(drive: LatticeDrive, key: string, seg: CompiledSegment,
   return table;
 }
 
+/**
+ * Adds one term (g·c)|to⟩⟨from| + h.c. to a Bloch matrix, g the time factor and c the
+ * momentum-dressed amplitude; an onsite term adds Re(g·c) once (drive.ts conventions).
+ */
+function addTerm(out: ComplexMatrix, n: number, term: { onsite: boolean; from: number; to: number }, gr: number, gi: number, cRe: number, cIm: number): void {
+  if (term.onsite) {
+    out.re[term.to * n + term.to] += gr * cRe;
+    return;
+  }
+  const hr = gr * cRe - gi * cIm, hi = gr * cIm + gi * cRe;
+  const p = term.to * n + term.from, q = term.from * n + term.to;
+  out.re[p] += hr;
+  out.im[p] += hi;
+  out.re[q] += hr;
+  out.im[q] -= hi;
+}
+
 function fillSegment(seg: CompiledSegment, g: Float64Array, out: ComplexMatrix): ComplexMatrix {
   const n = out.rows;
   out.re.fill(0);
@@ -165,16 +182,7 @@ function fillSegment(seg: CompiledSegment, g: Float64Array, out: ComplexMatrix):
   for (let j = 0; j < terms.length; j++) {
     const term = terms[j];
     const gr = g[2 * j], gi = g[2 * j + 1];
-    if (term.onsite) {
-      out.re[term.to * n + term.to] += gr * term.cRe;
-      continue;
-    }
-    const hr = gr * term.cRe - gi * term.cIm, hi = gr * term.cIm + gi * term.cRe;
-    const p = term.to * n + term.from, q = term.from * n + term.to;
-    out.re[p] += hr;
-    out.im[p] += hi;
-    out.re[q] += hr;
-    out.im[q] -= hi;
+    addTerm(out, n, term, gr, gi, term.cRe, term.cIm);
   }
   return out;
 }
@@ -295,16 +303,7 @@ export function compileConstantDrive(drive: LatticeDrive): ConstantDrive | null 
       const cr = Math.cos(arg), ci = Math.sin(arg);
       const ar = amps[j][0], ai = amps[j][1];
       const cRe = ar * cr - ai * ci, cIm = ar * ci + ai * cr;
-      if (term.onsite) {
-        out.re[term.to * n + term.to] += gr * cRe;
-        continue;
-      }
-      const hr = gr * cRe - gi * cIm, hi = gr * cIm + gi * cRe;
-      const p = term.to * n + term.from, q = term.from * n + term.to;
-      out.re[p] += hr;
-      out.im[p] += hi;
-      out.re[q] += hr;
-      out.im[q] -= hi;
+      addTerm(out, n, term, gr, gi, cRe, cIm);
     }
     return out;
   };

@@ -5,7 +5,7 @@ import type { ComplexMatrix } from '../../../src/numerics/linalg/complex-matrix.
 import { adjoint, distance, identity, multiply, multiplyAdjointLeft, zeros } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { randomUnitary, seededRandom } from '../../support/random.ts';
 import type { Random } from '../../support/random.ts';
-import { expectBelow, expectWithin, math, toMathjs } from './comparisons.ts';
+import { defects, expectBelow, expectWithin, math, toMathjs } from './comparisons.ts';
 
 /** One brickwork layer: independent 2×2 unitaries on the pairs (p, p+1), p = first, first+2, … */
 function layer(random: Random, n: number, first: number): ComplexMatrix {
@@ -38,18 +38,6 @@ function bandedWithPhases(seed: number, phases: number[]): ComplexMatrix {
   return u;
 }
 
-function defects(u: ComplexMatrix, e: UnitaryEigen): { residual: number; orthogonality: number } {
-  const n = u.rows, v = e.vectors;
-  const vl = zeros(n, n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const c = Math.cos(e.phases[j]), s = Math.sin(e.phases[j]);
-      vl.re[i * n + j] = v.re[i * n + j] * c - v.im[i * n + j] * s;
-      vl.im[i * n + j] = v.re[i * n + j] * s + v.im[i * n + j] * c;
-    }
-  }
-  return { residual: distance(multiply(u, v), vl), orthogonality: distance(multiplyAdjointLeft(v, v), identity(n)) };
-}
 
 describe('BandedLu', () => {
   it('solves a seeded banded system to 1e-13 relative residual and agrees with mathjs lusolve (reference: mathjs)', () => {

@@ -9,7 +9,8 @@ import { create, all } from 'mathjs';
 import type { Matrix, Complex as MathComplex } from 'mathjs';
 import { expect } from 'vitest';
 import type { ComplexMatrix } from '../../../src/numerics/linalg/complex-matrix.ts';
-import { zeros } from '../../../src/numerics/linalg/complex-matrix.ts';
+import { distance, identity, multiply, multiplyAdjointLeft, zeros } from '../../../src/numerics/linalg/complex-matrix.ts';
+import type { UnitaryEigen } from '../../../src/numerics/linalg/unitary-eigen.ts';
 
 export const math = create(all);
 
@@ -79,3 +80,17 @@ export function linalgFixtures(): LinalgFixtures {
 }
 
 export const EPS = 2 ** -52;
+
+/** Independent recomputation of ‖UV − VΛ‖_F and ‖V†V − 1‖_F for a unitary eigendecomposition. */
+export function defects(u: ComplexMatrix, e: UnitaryEigen): { residual: number; orthogonality: number } {
+  const n = u.rows, v = e.vectors;
+  const vl = zeros(n, n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      const c = Math.cos(e.phases[j]), s = Math.sin(e.phases[j]);
+      vl.re[i * n + j] = v.re[i * n + j] * c - v.im[i * n + j] * s;
+      vl.im[i * n + j] = v.re[i * n + j] * s + v.im[i * n + j] * c;
+    }
+  }
+  return { residual: distance(multiply(u, v), vl), orthogonality: distance(multiplyAdjointLeft(v, v), identity(n)) };
+}

@@ -3,21 +3,8 @@ import { UnitaryEigen, foldPhase } from '../../../src/numerics/linalg/unitary-ei
 import type { ComplexMatrix } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { distance, fromArrays, identity, multiply, multiplyAdjointLeft, zeros } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { randomUnitary, seededRandom, unitaryWithPhases } from '../../support/random.ts';
-import { expectBelow, expectWithin, fixtureMatrix, linalgFixtures, math, toMathjs } from './comparisons.ts';
+import { defects, expectBelow, expectWithin, fixtureMatrix, linalgFixtures, math, toMathjs } from './comparisons.ts';
 
-/** Independent recomputation of ‖UV − VΛ‖_F and ‖V†V − 1‖_F. */
-function defects(u: ComplexMatrix, e: UnitaryEigen): { residual: number; orthogonality: number } {
-  const n = u.rows, v = e.vectors;
-  const vl = zeros(n, n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const c = Math.cos(e.phases[j]), s = Math.sin(e.phases[j]);
-      vl.re[i * n + j] = v.re[i * n + j] * c - v.im[i * n + j] * s;
-      vl.im[i * n + j] = v.re[i * n + j] * s + v.im[i * n + j] * c;
-    }
-  }
-  return { residual: distance(multiply(u, v), vl), orthogonality: distance(multiplyAdjointLeft(v, v), identity(n)) };
-}
 
 function circularDistance(a: number, b: number): number {
   return Math.abs(foldPhase(a - b));
