@@ -4,8 +4,8 @@
  * Chern number of each of the two bands on that grid.
  */
 import { FloquetSampler, sampleQuasienergyGrid } from '../../src/numerics/quasienergy-bands.ts';
-import { fhsFieldStrength, latticeOrientation, selectColumns } from '../../src/numerics/chern-fhs.ts';
-import { groupColumns } from '../../src/numerics/gaps.ts';
+import { fhsFieldStrength, latticeOrientation, selectColumns } from '../../src/numerics/sheet/chern-fhs.ts';
+import { groupColumns } from '../../src/numerics/sheet/gaps.ts';
 import { checkerboardDrive } from '../../test/support/drives/checkerboard.ts';
 import { measure } from '../measure.ts';
 

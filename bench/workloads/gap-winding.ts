@@ -3,7 +3,7 @@
  * of the five-step checkerboard drive at Jτ = 0.4π, Δτ = 0.3 (τ = 1), refined
  * until |W − round W| ≤ 10⁻³ on two successive grids.
  */
-import { gapWindingNumbers } from '../../src/numerics/winding.ts';
+import { gapWindingNumbers } from '../../src/numerics/sheet/winding/gap-winding.ts';
 import { checkerboardDrive } from '../../test/support/drives/checkerboard.ts';
 import { measure } from '../measure.ts';
 

@@ -4,7 +4,7 @@
  * one bond direction per step, Jτ = 0.45π, sublattice potential δτ = 0.3
  * (τ = 1), 60 cells wide (finite along a₁), 400 momenta along the edge.
  */
-import { ribbonSpectrum } from '../../src/numerics/ribbon.ts';
+import { ribbonSpectrum } from '../../src/numerics/sheet/ribbon.ts';
 import { threeStepHoneycombDrive } from '../../test/support/drives/honeycomb.ts';
 import { measure } from '../measure.ts';
 

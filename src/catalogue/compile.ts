@@ -5,9 +5,9 @@
  * cos with phase − π/2, symmetry operators turned into complex matrices.
  */
 import type { Amplitude, MatrixEntry, ModelDocument, Modulation as ModulationSpec, Quantity } from './model-types.generated.ts';
-import type { DriveSegment, DriveTerm, LatticeDrive, Modulation, VectorPotentialComponent } from '../numerics/drive.ts';
+import type { DriveSegment, DriveTerm, LatticeDrive, Modulation, VectorPotentialComponent } from '../numerics/evolution/drive.ts';
 import { zeros, type Complex, type ComplexMatrix } from '../numerics/linalg/complex-matrix.ts';
-import { NambuInputError, nambuDrive, type PairingTerm } from '../numerics/bdg.ts';
+import { NambuInputError, nambuDrive, type PairingTerm } from '../numerics/evolution/bdg.ts';
 import { joinPointer, type Issue } from './diagnostics.ts';
 import { evaluateParameters, evaluateQuantity, isIssue } from './parameters.ts';
 import { checkSemantics } from './semantic-checks.ts';

@@ -1,11 +1,11 @@
 export * from './linalg/complex-matrix.ts';
 export * from './certificates.ts';
-export * from './drive.ts';
+export * from './evolution/drive.ts';
 export type * from './portrait.ts';
 export * from './quasienergy-bands.ts';
-export * from './gaps.ts';
-export * from './chern-fhs.ts';
+export * from './sheet/gaps.ts';
+export * from './sheet/chern-fhs.ts';
 export * from './supercell.ts';
-export * from './ribbon.ts';
-export * from './edge-modes.ts';
-export * from './sheet-analysis.ts';
+export * from './sheet/ribbon.ts';
+export * from './sheet/edge-modes.ts';
+export * from './sheet/sheet-analysis.ts';

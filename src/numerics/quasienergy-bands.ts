@@ -14,10 +14,10 @@
  * grid j/n → 2j/2n reproduces the same floating-point momenta exactly).
  */
 import type { ComplexMatrix } from './linalg/complex-matrix.ts';
-import type { LatticeDrive } from './drive.ts';
+import type { LatticeDrive } from './evolution/drive.ts';
 import { UnitaryEigen } from './linalg/unitary-eigen.ts';
-import type { Propagation, PropagatorOptions } from './propagator.ts';
-import { prepareFloquet } from './propagator.ts';
+import type { Propagation, PropagatorOptions } from './evolution/propagator.ts';
+import { prepareFloquet } from './evolution/propagator.ts';
 
 /** The Floquet spectrum at one momentum. */
 export interface FloquetSample {

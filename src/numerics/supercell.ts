@@ -18,7 +18,7 @@
  * stays sparse (one entry per bond), so propagators can exploit the block
  * structure of each segment.
  */
-import type { DriveTerm, LatticeDrive } from './drive.ts';
+import type { DriveTerm, LatticeDrive } from './evolution/drive.ts';
 
 export class SupercellInputError extends RangeError {
   override name = 'SupercellInputError';

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { checkModelSource, loadModels, type LoadedModel } from '../../src/catalogue/load.ts';
 import { CompileError, compileModel } from '../../src/catalogue/compile.ts';
-import type { LatticeDrive, Modulation } from '../../src/numerics/drive.ts';
+import type { LatticeDrive, Modulation } from '../../src/numerics/evolution/drive.ts';
 import { seededRandom } from '../support/random.ts';
 
 const { models } = await loadModels(['models']);

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { truncateDrive, SupercellInputError } from '../../src/numerics/supercell.ts';
-import { blochHamiltonian } from '../../src/numerics/bloch.ts';
+import { blochHamiltonian } from '../../src/numerics/evolution/bloch.ts';
 import { HermitianEigen } from '../../src/numerics/linalg/hermitian-eigen.ts';
-import type { LatticeDrive } from '../../src/numerics/drive.ts';
+import type { LatticeDrive } from '../../src/numerics/evolution/drive.ts';
 import { qwzDrive } from '../support/drives/qwz.ts';
 import { circularHoneycombDrive } from '../support/drives/honeycomb.ts';
 import { staticDrive } from '../support/drives/static.ts';

@@ -3,7 +3,7 @@
  * band plots. Reduced momenta: sheets go Γ → b₁/2 → (b₁+b₂)/2 → Γ, chains
  * run s = −1/2 … 1/2. This is plot data only; verdicts never use it.
  */
-import type { LatticeDrive } from '../../numerics/drive.ts';
+import type { LatticeDrive } from '../../numerics/evolution/drive.ts';
 import { FloquetSampler } from '../../numerics/quasienergy-bands.ts';
 import { roundTo } from './decimate.ts';
 

@@ -1,5 +1,5 @@
 /** Assembles ModelRecords from loaded models, compiled drives and judgements. */
-import type { LatticeDrive } from '../../numerics/drive.ts';
+import type { LatticeDrive } from '../../numerics/evolution/drive.ts';
 import type { SheetPortrait } from '../../numerics/portrait.ts';
 import type { Diagnostic } from '../diagnostics.ts';
 import type { LoadedModel } from '../load.ts';

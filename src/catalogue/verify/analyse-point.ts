@@ -19,9 +19,9 @@ import { judgeSheet, sameLabel } from './sheet-verdicts.ts';
 import type { Verdict } from './verdict.ts';
 import type { ConsistencyCheck } from '../../numerics/portrait.ts';
 import type { NumericsHints } from '../model-types.generated.ts';
-import { verdictPropagatorTolerance } from '../../numerics/propagator.ts';
-import { DEFAULT_GAP_TOLERANCE } from '../../numerics/gaps.ts';
-import { DEFAULT_WINDING_TOLERANCE } from '../../numerics/winding.ts';
+import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.ts';
+import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
+import { DEFAULT_WINDING_TOLERANCE } from '../../numerics/sheet/winding/gap-winding.ts';
 
 export interface PointResult {
   dimension: number;

@@ -17,8 +17,8 @@ import type { AnalysisRequest } from './engines.ts';
 import { propagatorHints } from './engines.ts';
 import type { ChainInvariant, ChainView } from './chain-view.ts';
 import { wrapLabel } from './claims.ts';
-import { verdictPropagatorTolerance } from '../../numerics/propagator.ts';
-import { DEFAULT_GAP_TOLERANCE } from '../../numerics/gaps.ts';
+import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.ts';
+import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
 import { DEFAULT_POLICY } from './policy.ts';
 
 

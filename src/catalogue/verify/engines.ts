@@ -8,7 +8,7 @@ import type { LoadedModel } from '../load.ts';
 import type { NumericsHints } from '../model-types.generated.ts';
 import type { SheetPortrait } from '../../numerics/portrait.ts';
 import type { ChainView } from './chain-view.ts';
-import type { PropagatorOptions } from '../../numerics/propagator.ts';
+import type { PropagatorOptions } from '../../numerics/evolution/propagator.ts';
 
 /** What a caller needs from the engines for one parameter point. */
 export interface AnalysisRequest {

@@ -4,7 +4,7 @@
  * hints mapped onto engine options here and nowhere else.
  */
 import { compileModel } from '../compile.ts';
-import { analyseSheet, type SheetOptions } from '../../numerics/sheet-analysis.ts';
+import { analyseSheet, type SheetOptions } from '../../numerics/sheet/sheet-analysis.ts';
 import type { AnalysisRequest, EngineSet } from './engines.ts';
 import { propagatorHints } from './engines.ts';
 import { analyseChainView } from './chain-adapter.ts';

@@ -27,10 +27,10 @@
  * used to size open chains.
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
-import type { LatticeDrive } from '../drive.ts';
-import type { PropagatorOptions } from '../propagator.ts';
-import type { Propagation } from '../propagator.ts';
-import { floquetOperator, prepareFloquet } from '../propagator.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
+import type { PropagatorOptions } from '../evolution/propagator.ts';
+import type { Propagation } from '../evolution/propagator.ts';
+import { floquetOperator, prepareFloquet } from '../evolution/propagator.ts';
 import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
 import type { ChainGapReport } from '../portrait.ts';
 

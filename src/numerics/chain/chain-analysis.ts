@@ -9,8 +9,8 @@
  * (bulk-gaps.ts), so momenta they share are propagated once.
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
-import type { LatticeDrive } from '../drive.ts';
-import type { PropagatorOptions } from '../propagator.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
+import type { PropagatorOptions } from '../evolution/propagator.ts';
 import type { ChainChiralReport, ChainEndModes, ChainMajoranaReport, ChainPortrait, ChainSymmetryReport, ConsistencyCheck } from '../portrait.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import { bulkGaps, FloquetCache } from './bulk-gaps.ts';

@@ -19,16 +19,16 @@
  * |ν₀| and |ν_π| count end modes per end.
  */
 import type { ComplexMatrix, Complex } from '../linalg/complex-matrix.ts';
-import type { LatticeDrive } from '../drive.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
 import type { IntegerEstimate } from '../certificates.ts';
-import type { PropagatorOptions } from '../propagator.ts';
+import type { PropagatorOptions } from '../evolution/propagator.ts';
 import { integerEstimate } from '../certificates.ts';
 import { adjoint, multiply, zeros } from '../linalg/complex-matrix.ts';
 import { HermitianEigen } from '../linalg/hermitian-eigen.ts';
 import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
-import { floquetOperator } from '../propagator.ts';
-import { quasienergyBelowCut, spectralSum } from '../effective-hamiltonian.ts';
+import { floquetOperator } from '../evolution/propagator.ts';
+import { quasienergyBelowCut, spectralSum } from '../evolution/effective-hamiltonian.ts';
 import { shiftTimeOrigin } from './time-shift.ts';
 import { chiralRelation, findSymmetricFrames } from './symmetric-frames.ts';
 import type { FrameSearchOptions, SymmetricFrameSearch } from './symmetric-frames.ts';

@@ -21,15 +21,15 @@
  * Pfaffian signs of the Majorana-basis generators replace the static index.
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
-import type { LatticeDrive } from '../drive.ts';
-import type { PropagatorOptions } from '../propagator.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
+import type { PropagatorOptions } from '../evolution/propagator.ts';
 import { adjoint, multiply, identity, distance, zeros } from '../linalg/complex-matrix.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import { expMinusIHt } from '../linalg/exponential.ts';
-import { floquetOperator } from '../propagator.ts';
-import { prepareBloch } from '../bloch.ts';
-import { segmentStartTimes } from '../drive.ts';
-import { nambuParticleHole } from '../bdg.ts';
+import { floquetOperator } from '../evolution/propagator.ts';
+import { prepareBloch } from '../evolution/bloch.ts';
+import { segmentStartTimes } from '../evolution/drive.ts';
+import { nambuParticleHole } from '../evolution/bdg.ts';
 import { realSkewPfaffian } from './pfaffian.ts';
 import { fockHamiltonian, majoranaOperators, majoranaProducts, MAX_FOCK_MODES } from './fock-spin-lift.ts';
 import { isTimeDependent } from './reflection-residual.ts';

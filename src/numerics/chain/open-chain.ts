@@ -18,9 +18,9 @@
  * squares over cells with ρ above 1e-13·max ρ); ξ is the amplitude decay length
  * in cells, |ψ(x)| ∝ e^{−x/ξ}.
  */
-import type { LatticeDrive } from '../drive.ts';
-import type { PropagatorOptions } from '../propagator.ts';
-import { floquetOperator } from '../propagator.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
+import type { PropagatorOptions } from '../evolution/propagator.ts';
+import { floquetOperator } from '../evolution/propagator.ts';
 import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
 import { truncateDrive } from '../supercell.ts';
 import { wrapQuasienergy as wrap } from '../quasienergy-bands.ts';

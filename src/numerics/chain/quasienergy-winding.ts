@@ -9,9 +9,9 @@
  * therefore reported as a consistency check of the time integration and of
  * the Bloch gauge (a nonzero value means U(k + 1) ≠ U(k) or a broken propagator).
  */
-import type { LatticeDrive } from '../drive.ts';
-import type { PropagatorOptions } from '../propagator.ts';
-import { floquetOperator } from '../propagator.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
+import type { PropagatorOptions } from '../evolution/propagator.ts';
+import { floquetOperator } from '../evolution/propagator.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import { phaseWinding } from './phase-winding.ts';
 import type { PhaseWindingOptions, PhaseWindingResult } from './phase-winding.ts';

@@ -14,10 +14,10 @@
  * checked. The residual is max ‖X[H] − σH′‖_F / max(1, max ‖H‖_F).
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
-import type { LatticeDrive } from '../drive.ts';
-import { segmentStartTimes } from '../drive.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
+import { segmentStartTimes } from '../evolution/drive.ts';
 import { distance, frobeniusNorm } from '../linalg/complex-matrix.ts';
-import { prepareBloch } from '../bloch.ts';
+import { prepareBloch } from '../evolution/bloch.ts';
 import { shiftTimeOrigin, TIME_MATCH } from './time-shift.ts';
 
 export interface ReflectionRelation {

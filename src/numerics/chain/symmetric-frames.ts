@@ -12,8 +12,8 @@
  * wins; ties go to the earliest time.
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
-import type { LatticeDrive } from '../drive.ts';
-import { segmentStartTimes } from '../drive.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
+import { segmentStartTimes } from '../evolution/drive.ts';
 import { adjoint, multiply } from '../linalg/complex-matrix.ts';
 import { reflectionResidual } from './reflection-residual.ts';
 import type { ReflectionRelation } from './reflection-residual.ts';

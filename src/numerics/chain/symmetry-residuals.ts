@@ -12,12 +12,12 @@
  *   ‖U_T U(k)* U_T† − U(−k)†‖.
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
-import type { LatticeDrive } from '../drive.ts';
-import type { PropagatorOptions } from '../propagator.ts';
+import type { LatticeDrive } from '../evolution/drive.ts';
+import type { PropagatorOptions } from '../evolution/propagator.ts';
 import { adjoint, multiply, frobeniusNorm, distance, zeros } from '../linalg/complex-matrix.ts';
-import { floquetOperator } from '../propagator.ts';
-import { prepareBloch } from '../bloch.ts';
-import { segmentStartTimes } from '../drive.ts';
+import { floquetOperator } from '../evolution/propagator.ts';
+import { prepareBloch } from '../evolution/bloch.ts';
+import { segmentStartTimes } from '../evolution/drive.ts';
 import { CHECK_MOMENTA } from './reflection-residual.ts';
 import type { ReflectionRelation } from './reflection-residual.ts';
 import { chiralRelation, findSymmetricFrames } from './symmetric-frames.ts';

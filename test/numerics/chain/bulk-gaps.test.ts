@@ -14,7 +14,7 @@
  * to the nearest state (the clearance) shrinks to (φ_min − μT)/π.
  */
 import { describe, expect, it } from 'vitest';
-import type { LatticeDrive } from '../../../src/numerics/drive.ts';
+import type { LatticeDrive } from '../../../src/numerics/evolution/drive.ts';
 import { brentMinimum, bulkGaps, FloquetCache, twoBandPhases } from '../../../src/numerics/chain/bulk-gaps.ts';
 import { UnitaryEigen } from '../../../src/numerics/linalg/unitary-eigen.ts';
 import { randomUnitary, seededRandom, unitaryWithPhases } from '../../support/random.ts';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fromArrays, identity } from '../../../src/numerics/linalg/complex-matrix.ts';
-import { nambuParticleHole } from '../../../src/numerics/bdg.ts';
+import { nambuParticleHole } from '../../../src/numerics/evolution/bdg.ts';
 import { analyseChain } from '../../../src/numerics/chain/chain-analysis.ts';
 import { kickedKitaevChain, twoStepChain } from '../../support/drives/chains.ts';
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fromArrays } from '../../../src/numerics/linalg/complex-matrix.ts';
-import { nambuParticleHole } from '../../../src/numerics/bdg.ts';
+import { nambuParticleHole } from '../../../src/numerics/evolution/bdg.ts';
 import { openChainSpectrum } from '../../../src/numerics/chain/open-chain.ts';
 import { chiralInvariants } from '../../../src/numerics/chain/chiral-winding.ts';
 import { majoranaInvariants } from '../../../src/numerics/chain/majorana-z2.ts';

@@ -3,9 +3,9 @@
  * textbook (source named beside each builder); amplitudes follow the term
  * convention of src/numerics/drive.ts.
  */
-import type { DriveSegment, DriveTerm, LatticeDrive } from '../../../src/numerics/drive.ts';
-import type { PairingTerm } from '../../../src/numerics/bdg.ts';
-import { nambuDrive } from '../../../src/numerics/bdg.ts';
+import type { DriveSegment, DriveTerm, LatticeDrive } from '../../../src/numerics/evolution/drive.ts';
+import type { PairingTerm } from '../../../src/numerics/evolution/bdg.ts';
+import { nambuDrive } from '../../../src/numerics/evolution/bdg.ts';
 
 const constant = { kind: 'constant' } as const;
 

@@ -16,7 +16,7 @@
  * circuit is interrupted and particles are carried along it (the anomalous
  * phase, same paper).
  */
-import type { DriveSegment, DriveTerm, LatticeDrive } from '../../../src/numerics/drive.ts';
+import type { DriveSegment, DriveTerm, LatticeDrive } from '../../../src/numerics/evolution/drive.ts';
 
 export interface CheckerboardParameters {
   /** Hopping J on the active bond. */

@@ -14,7 +14,7 @@
  *
  * Both return deep copies and leave the input untouched.
  */
-import type { DriveSegment, DriveTerm, LatticeDrive, Modulation, VectorPotentialComponent } from '../../../src/numerics/drive.ts';
+import type { DriveSegment, DriveTerm, LatticeDrive, Modulation, VectorPotentialComponent } from '../../../src/numerics/evolution/drive.ts';
 
 function copyTerm(term: DriveTerm, phaseShift: (harmonic: number) => number): DriveTerm {
   const modulation: Modulation =

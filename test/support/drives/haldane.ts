@@ -5,7 +5,7 @@
  * site i to site j through their common neighbour k is the sign of
  * (r_k − r_i) × (r_j − r_k), so hops that turn left pick up e^{+iφ}.
  */
-import type { LatticeDrive } from '../../../src/numerics/drive.ts';
+import type { LatticeDrive } from '../../../src/numerics/evolution/drive.ts';
 import type { StaticHopping } from './static.ts';
 import { staticDrive } from './static.ts';
 import { HONEYCOMB_BONDS, HONEYCOMB_STATES, HONEYCOMB_VECTORS } from './honeycomb.ts';

@@ -6,7 +6,7 @@
  * (j, y+1) carries the phase e^{2πi(p/q) j}. The phase around a plaquette
  * traversed counter-clockwise is then 2πp/q. Negative p reverses the field.
  */
-import type { LatticeDrive } from '../../../src/numerics/drive.ts';
+import type { LatticeDrive } from '../../../src/numerics/evolution/drive.ts';
 import type { StaticHopping } from './static.ts';
 import { staticDrive } from './static.ts';
 

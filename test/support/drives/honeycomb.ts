@@ -14,7 +14,7 @@
  *    −t on all bonds with the Peierls vector potential
  *    A(t) = A₀ (cos ωt, χ sin ωt), χ = ±1 the helicity, T = 2π/ω.
  */
-import type { DriveSegment, DriveTerm, LatticeDrive } from '../../../src/numerics/drive.ts';
+import type { DriveSegment, DriveTerm, LatticeDrive } from '../../../src/numerics/evolution/drive.ts';
 
 const SQRT3 = Math.sqrt(3);
 export const HONEYCOMB_VECTORS: number[][] = [

@@ -10,7 +10,7 @@
  *     m σ_z:       onsite ±m.
  * `qwzBloch` gives the analytic matrix for cross-checks.
  */
-import type { LatticeDrive } from '../../../src/numerics/drive.ts';
+import type { LatticeDrive } from '../../../src/numerics/evolution/drive.ts';
 import type { StaticHopping } from './static.ts';
 import { staticDrive } from './static.ts';
 

@@ -7,7 +7,7 @@
  * largest row sum of |amplitudes|, counting each hopping on both of its states):
  * T = π/(1.25 B), so the whole spectrum lies within 80 % of the window.
  */
-import type { BasisState, DriveTerm, LatticeDrive } from '../../../src/numerics/drive.ts';
+import type { BasisState, DriveTerm, LatticeDrive } from '../../../src/numerics/evolution/drive.ts';
 
 export interface StaticHopping {
   from: number;
