@@ -479,6 +479,10 @@ export interface NumericsHints {
   timeSlices?: number;
   ribbon?: RibbonHints;
   /**
+   * Seconds this model may take to verify (default 600, at most 3600). The estimated work is held to it before anything is computed, and verification stops when it is reached. strobe check --time-limit replaces it for every model.
+   */
+  timeLimit?: number;
+  /**
    * Cells in the open chain used for end modes (1D). Default: 10 bulk decay lengths, at most 160.
    */
   chainLength?: number;

@@ -18,7 +18,8 @@ export const RECORD_FORMAT = 1;
  * unsettled: none contradicted, at least one unsettled;
  * portrait-only: the file makes no claims; the computed portrait is all there is;
  * invalid: the file did not load or compile (see diagnostics);
- * failed: the computation did not finish (timed out, crashed or raised an error).
+ * failed: the computation did not finish: refused because its estimated cost
+ *   exceeds the model's limits, timed out, crashed or raised an error.
  */
 export type ModelStatus = 'verified' | 'disputed' | 'unsettled' | 'portrait-only' | 'invalid' | 'failed';
 
@@ -98,11 +99,26 @@ export interface SweepPoint {
   error: string | null;
 }
 
+/** The limits a model was verified under and the cost estimated for it before computing (budget/). */
+export interface BudgetRecord {
+  timeLimitSeconds: number;
+  timeLimitSource: 'default' | 'model file' | 'command line';
+  memoryLimitBytes: number;
+  estimate: {
+    seconds: number;
+    memoryBytes: number;
+    stages: { stage: string; seconds: number; memoryBytes: number; detail: string }[];
+  };
+}
+
 export interface ModelRecord {
   recordFormat: number;
   engine: { version: string; numericsHash: string };
   id: string;
+  /** Model file, relative to the inventory (inventory.ts), '/'-separated. */
   file: string;
+  /** sha256 of the file's bytes when it was checked ("sha256:…"), null when it was not read. */
+  sourceHash: string | null;
   status: ModelStatus;
   statusReason: string;
   model: {
@@ -132,8 +148,12 @@ export interface ModelRecord {
   anomalous: { classification: AnomalousClass; reason: string; definition: string };
   sweeps: SweepRecord[];
   diagnostics: RecordDiagnostic[];
-  incident: { kind: 'timed-out' | 'crashed' | 'error'; message: string } | null;
+  incident: { kind: IncidentKind; message: string } | null;
+  /** Limits and cost estimate; null for a model that did not load. */
+  budget: BudgetRecord | null;
 }
+
+export type IncidentKind = 'over-budget' | 'timed-out' | 'crashed' | 'error';
 
 /** Machine-dependent facts kept out of the records (timings.json). */
 export interface ModelTimings {

@@ -4,7 +4,7 @@ import type { SheetPortrait } from '../../numerics/portrait.ts';
 import type { Diagnostic } from '../diagnostics.ts';
 import type { LoadedModel } from '../load.ts';
 import type { ModelDocument } from '../model-types.generated.ts';
-import type { AnalysisRecord, ModelRecord, RecordDiagnostic, SpectrumRecord } from './model-record.ts';
+import type { AnalysisRecord, IncidentKind, ModelRecord, RecordDiagnostic, SpectrumRecord } from './model-record.ts';
 import { RECORD_FORMAT } from './model-record.ts';
 import { compareCodePoints } from './canonical-json.ts';
 import { decimateRows, roundRows, roundTo, strideFor } from './decimate.ts';
@@ -154,6 +154,7 @@ export function invalidRecord(engine: EngineIdentity, id: string, file: string, 
     engine,
     id,
     file,
+    sourceHash: null,
     status: 'invalid',
     statusReason: first ? `${first.file}:${first.line}:${first.column} ${first.message}` : 'the file did not load',
     model: doc ? safeMetadata(doc) : null,
@@ -167,13 +168,15 @@ export function invalidRecord(engine: EngineIdentity, id: string, file: string, 
     sweeps: [],
     diagnostics: diagnostics.map(recordDiagnostic),
     incident: null,
+    budget: null,
   };
 }
 
 /** A record for a model whose computation did not finish. */
-export function failedRecord(engine: EngineIdentity, loaded: LoadedModel, kind: 'timed-out' | 'crashed' | 'error', message: string): ModelRecord {
+export function failedRecord(engine: EngineIdentity, loaded: LoadedModel, kind: IncidentKind, message: string, diagnostics: Diagnostic[] = []): ModelRecord {
   return {
-    ...invalidRecord(engine, loaded.id, loaded.file, loaded.warnings, loaded.document),
+    ...invalidRecord(engine, loaded.id, loaded.file, [...diagnostics, ...loaded.warnings], loaded.document),
+    sourceHash: loaded.sourceHash,
     status: 'failed',
     statusReason: message,
     parameters: parameterRecords(loaded.document, loaded.parameters),

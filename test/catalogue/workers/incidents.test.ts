@@ -15,7 +15,7 @@ describe('models that hang or crash', () => {
       workers: 2,
       cache: false,
       // Generous, so that the well-behaved model finishes even on a loaded machine.
-      timeLimitMs: 10_000,
+      timeLimitSeconds: 10,
       taskModule: join(process.cwd(), 'test', 'catalogue', 'workers', 'misbehaving-task.ts'),
       onProgress: (e) => events.push(e),
     });

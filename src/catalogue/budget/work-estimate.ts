@@ -1,0 +1,270 @@
+/**
+ * The cost model: how long verifying a model will take and how much memory it
+ * will hold, estimated from the file alone (sizes and counts, no expression is
+ * evaluated and nothing is computed), so that a model asking for hours or
+ * gigabytes is refused in a millisecond instead of stalling the run.
+ *
+ * Everything reduces to dense linear algebra on Floquet operators:
+ *
+ *   one evaluation of U(k, T) for an n × n Bloch matrix costs
+ *       EVALUATION_NS · (segment units + EIGEN_UNITS) · max(n, SMALL_N)³  nanoseconds,
+ *
+ * a constant segment or a kick being one unit (an exponential and a product),
+ * a segment with harmonic terms or a vector potential DRIVEN_SEGMENT_UNITS
+ * (Magnus slices), and EIGEN_UNITS the unitary eigen-decomposition. A single
+ * constant segment (a static model) is diagonalised directly: STATIC_UNITS in
+ * all. The stages count their evaluations:
+ *
+ *  sheets  band grid  n₁·n₂ momenta (numerics.kGrid, default 24 × 24), plus as many
+ *                     again for locating gaps;
+ *          Chern      the refinement grid doubles from max(kGrid) while it stays
+ *                     within 128 (worst case: it goes all the way), cached samples reused;
+ *          winding    grids 16, 24, …, 124 (growth 1.5) of WINDING_NODES_PER_SEGMENT
+ *                     time nodes per segment, each node about one unit;
+ *          ribbon     one evaluation of the (width·n)-state ribbon per momentum
+ *                     (numerics.ribbon, default 24 cells, 200 momenta), once per
+ *                     edge direction the claims name, and again at 1.5× the width
+ *                     (the second size every edge count is checked at);
+ *  chains  gap scan   kGrid[0] (default 128) momenta, three passes (gaps, symmetries,
+ *                     symmetric time frames);
+ *          open chain one evaluation of the (length·n)-state chain (numerics.chainLength,
+ *                     default at most 160 cells), and again at 1.5× the length;
+ *  sweeps             every grid point repeats the bulk stages the sweep asks for.
+ *
+ * Memory: a cached Floquet sample holds n² complex numbers (16 bytes each)
+ * plus SAMPLE_OVERHEAD_BYTES; band grids keep every sample, the Chern
+ * refinement at most SAMPLER_CACHE_LIMIT; ribbons keep the eigenvectors of
+ * every momentum; an open chain holds OPEN_CHAIN_MATRICES dense matrices.
+ *
+ * The constants were measured with `npm run bench -- work-estimate` (synthetic
+ * stacks of Qi–Wu–Zhang sheets and dimer chains, test/support/synthetic-models.ts)
+ * on the 2-core development machine under the load of other jobs; the bench
+ * prints estimate against measurement per stage, and docs/benchmarks.md keeps
+ * the last figures. They are central estimates (within a factor of about 2.5
+ * either way on those models), not bounds: the time limit stays the backstop.
+ * When an engine changes its cost (e.g. banded ribbons), adjust the stage here
+ * and re-run the bench.
+ */
+import type { ModelDocument } from '../model-types.generated.ts';
+
+/** Nanoseconds per unit per (states)³ in one Floquet evaluation (measured: 25–45 ns for n ≥ 32). */
+export const EVALUATION_NS = 30;
+/** The unitary eigen-decomposition and the bookkeeping around it, in segment units. */
+export const EIGEN_UNITS = 4;
+/** A static model (one constant segment): one Hermitian eigen-decomposition, in units. */
+export const STATIC_UNITS = 2;
+/** A segment with harmonic terms: Magnus slices, doubled until converged (measured 50–200 units at n = 2–32). */
+export const DRIVEN_SEGMENT_UNITS = 100;
+/** Below this many states per matrix, call overhead dominates: cost as if there were this many. */
+export const SMALL_N = 4;
+/** Time nodes per segment and momentum in the winding-number integral (Gauss–Legendre, about one per radian). */
+export const WINDING_NODES_PER_SEGMENT = 10;
+/** Bytes per cached Floquet sample besides its n² complex entries (typed arrays, object headers). */
+export const SAMPLE_OVERHEAD_BYTES = 600;
+/** Samples the Floquet sampler keeps before it starts over (quasienergy-bands.ts, cacheLimit). */
+export const SAMPLER_CACHE_LIMIT = 1 << 16;
+/** Dense matrices of the open chain's size alive at once (Hamiltonian, exponential, product, eigenvectors). */
+export const OPEN_CHAIN_MATRICES = 4;
+/** Dense working matrices of the ribbon's size besides the kept eigenvectors. */
+export const RIBBON_WORK_MATRICES = 4;
+
+/** Engine defaults the estimate assumes when the file does not set a hint (docs/model-format.md). */
+export const DEFAULTS = {
+  sheetGrid: 24,
+  chainGrid: 128,
+  chernMaxGrid: 128,
+  windingGrids: [16, 24, 36, 54, 82, 124],
+  ribbonWidth: 24,
+  ribbonMomenta: 200,
+  chainLength: 160,
+  secondSize: 1.5,
+} as const;
+
+const COMPLEX_BYTES = 16;
+
+export interface CostDriver {
+  /** JSON pointer of the field this cost grows with. */
+  pointer: string;
+  /** What the field contributes, e.g. "96 × 96 momenta". */
+  text: string;
+  /** How far the field is above its usual size (cost ratio to the default); the largest is blamed. */
+  excess: number;
+}
+
+export interface StageEstimate {
+  stage: string;
+  seconds: number;
+  memoryBytes: number;
+  /** What the numbers are made of, e.g. "9216 momenta × 4 × 4 Floquet operators". */
+  detail: string;
+  drivers: CostDriver[];
+}
+
+export interface WorkEstimate {
+  /** Estimated compute time of the whole verification, seconds on the reference machine. */
+  seconds: number;
+  /** Largest memory any stage holds, bytes. */
+  memoryBytes: number;
+  stages: StageEstimate[];
+}
+
+interface Shape {
+  states: number;
+  /** Segment units of one evaluation (without the eigen-decomposition). */
+  units: number;
+  isStatic: boolean;
+  segments: number;
+  driven: number;
+}
+
+function shapeOf(doc: ModelDocument): Shape {
+  const segments = doc.drive?.segments ?? [];
+  const nambu = segments.some((s) => (s.pairings ?? []).length > 0);
+  const states = (doc.lattice?.orbitals?.length ?? 1) * (nambu ? 2 : 1);
+  let units = 0, driven = 0;
+  for (const s of segments) {
+    const terms = [...(s.onsite ?? []), ...(s.hoppings ?? []), ...(s.pairings ?? [])];
+    const isDriven = (s.vectorPotential ?? []).length > 0 || terms.some((t) => t.modulation?.kind === 'harmonic');
+    if (isDriven) {
+      driven++;
+      const hinted = doc.numerics?.timeSlices !== undefined ? 2 * doc.numerics.timeSlices : 0;
+      units += Math.max(DRIVEN_SEGMENT_UNITS, hinted);
+    } else units += 1;
+  }
+  return { states, units: Math.max(1, units), isStatic: segments.length === 1 && driven === 0, segments: segments.length, driven };
+}
+
+/** Nanoseconds of one Floquet evaluation on n states. */
+function evaluationNs(shape: Shape, n: number): number {
+  const units = shape.isStatic ? STATIC_UNITS : shape.units + EIGEN_UNITS;
+  return EVALUATION_NS * units * Math.max(n, SMALL_N) ** 3;
+}
+
+const sampleBytes = (n: number) => n * n * COMPLEX_BYTES + SAMPLE_OVERHEAD_BYTES;
+const fmt = (x: number) => (x >= 1e4 ? x.toExponential(1).replace('e+', 'e') : String(Math.round(x)));
+
+function structureDrivers(shape: Shape): CostDriver[] {
+  return [
+    { pointer: '/lattice/orbitals', text: `${shape.states} states per cell`, excess: (shape.states / 2) ** 3 },
+    { pointer: '/drive/segments', text: `${shape.segments} segments${shape.driven > 0 ? ` (${shape.driven} with time-dependent terms)` : ''}`, excess: shape.units },
+  ];
+}
+
+function sheetStages(doc: ModelDocument, shape: Shape, bulkOnly: { chern: boolean; winding: boolean } | null): StageEstimate[] {
+  const n = shape.states;
+  const kGrid = doc.numerics?.kGrid;
+  const [g1, g2] = kGrid ? [kGrid[0], kGrid[1] ?? kGrid[0]] : [DEFAULTS.sheetGrid, DEFAULTS.sheetGrid];
+  const gridDriver: CostDriver[] = kGrid ? [{ pointer: '/numerics/kGrid', text: `a ${g1} × ${g2} band grid`, excess: (g1 * g2) / DEFAULTS.sheetGrid ** 2 }] : [];
+  const evalS = evaluationNs(shape, n) * 1e-9;
+  const stages: StageEstimate[] = [];
+  const bandPoints = g1 * g2;
+  stages.push({
+    stage: 'band grid',
+    seconds: 2 * bandPoints * evalS,
+    memoryBytes: bandPoints * sampleBytes(n),
+    detail: `${bandPoints} momenta (and as many to locate gaps) × ${n}-state Floquet operators`,
+    drivers: [...gridDriver, ...structureDrivers(shape)],
+  });
+  if (bulkOnly === null || bulkOnly.chern) {
+    let final = Math.max(2, g1, g2);
+    while (2 * final <= DEFAULTS.chernMaxGrid) final *= 2;
+    const points = final * final;
+    stages.push({
+      stage: 'Chern numbers',
+      seconds: Math.max(0, points - bandPoints) * evalS,
+      memoryBytes: Math.min(points, SAMPLER_CACHE_LIMIT) * sampleBytes(n),
+      detail: `refinement up to ${final} × ${final} momenta × ${n}-state Floquet operators`,
+      drivers: [...(kGrid ? [{ ...gridDriver[0], text: `a starting Chern grid of ${Math.max(g1, g2)} × ${Math.max(g1, g2)}`, excess: points / 96 ** 2 }] : []), ...structureDrivers(shape)],
+    });
+  }
+  if (bulkOnly === null || bulkOnly.winding) {
+    const points = DEFAULTS.windingGrids.reduce((sum, g) => sum + g * g, 0);
+    const nodes = WINDING_NODES_PER_SEGMENT * shape.units;
+    stages.push({
+      stage: 'gap winding numbers',
+      seconds: points * nodes * EVALUATION_NS * Math.max(n, SMALL_N) ** 3 * 1e-9,
+      memoryBytes: DEFAULTS.windingGrids[DEFAULTS.windingGrids.length - 1] ** 2 * sampleBytes(n),
+      detail: `grids up to ${DEFAULTS.windingGrids.at(-1)} × ${DEFAULTS.windingGrids.at(-1)} momenta × ${nodes} time nodes × ${n}-state operators`,
+      drivers: structureDrivers(shape),
+    });
+  }
+  if (bulkOnly === null) {
+    const ribbon = doc.numerics?.ribbon;
+    const width = ribbon?.width ?? DEFAULTS.ribbonWidth;
+    const momenta = ribbon?.momenta ?? DEFAULTS.ribbonMomenta;
+    const directions = new Set<number>();
+    for (const gap of doc.claims?.gaps ?? []) for (const e of gap.edgeModes ?? []) directions.add(e.finiteAlong);
+    const cuts = Math.max(1, directions.size);
+    const states = width * n;
+    const second = Math.ceil(DEFAULTS.secondSize * width) * n;
+    const seconds = cuts * momenta * (evaluationNs(shape, states) + evaluationNs(shape, second)) * 1e-9;
+    const drivers: CostDriver[] = [];
+    if (ribbon?.width !== undefined) drivers.push({ pointer: '/numerics/ribbon/width', text: `a ribbon ${width} cells wide (${states} states, and ${second} at 1.5× the width)`, excess: (width / DEFAULTS.ribbonWidth) ** 3 });
+    if (ribbon?.momenta !== undefined) drivers.push({ pointer: '/numerics/ribbon/momenta', text: `${momenta} momenta along the edge`, excess: momenta / DEFAULTS.ribbonMomenta });
+    stages.push({
+      stage: 'ribbon spectra',
+      seconds,
+      memoryBytes: momenta * sampleBytes(second) + RIBBON_WORK_MATRICES * second * second * COMPLEX_BYTES,
+      detail: `${cuts} × ${momenta} momenta × ${states}-state ribbon operators, then ${second} states`,
+      drivers: [...drivers, ...structureDrivers(shape)],
+    });
+  }
+  return stages;
+}
+
+function chainStages(doc: ModelDocument, shape: Shape, bulkOnly: boolean): StageEstimate[] {
+  const n = shape.states;
+  const kGrid = doc.numerics?.kGrid?.[0];
+  const points = kGrid ?? DEFAULTS.chainGrid;
+  const stages: StageEstimate[] = [
+    {
+      stage: 'gap scan',
+      seconds: 3 * points * evaluationNs(shape, n) * 1e-9,
+      memoryBytes: points * sampleBytes(n),
+      detail: `3 × ${points} momenta × ${n}-state Floquet operators`,
+      drivers: [...(kGrid !== undefined ? [{ pointer: '/numerics/kGrid', text: `${points} momenta`, excess: points / DEFAULTS.chainGrid }] : []), ...structureDrivers(shape)],
+    },
+  ];
+  if (!bulkOnly) {
+    const length = doc.numerics?.chainLength ?? DEFAULTS.chainLength;
+    const states = length * n;
+    const second = Math.ceil(DEFAULTS.secondSize * length) * n;
+    stages.push({
+      stage: 'open chain',
+      seconds: (evaluationNs(shape, states) + evaluationNs(shape, second)) * 1e-9,
+      memoryBytes: OPEN_CHAIN_MATRICES * second * second * COMPLEX_BYTES,
+      detail: `open chains of ${states} and ${second} states`,
+      drivers: [
+        ...(doc.numerics?.chainLength !== undefined ? [{ pointer: '/numerics/chainLength', text: `an open chain of ${length} cells (${states} states, and ${second} at 1.5× the length)`, excess: (length / DEFAULTS.chainLength) ** 3 }] : []),
+        ...structureDrivers(shape),
+      ],
+    });
+  }
+  return stages;
+}
+
+/** Estimated cost of verifying a schema-valid model document, stage by stage. */
+export function estimateWork(doc: ModelDocument): WorkEstimate {
+  const shape = shapeOf(doc);
+  const dimension = doc.lattice?.dimension ?? 2;
+  const stages = dimension === 1 ? chainStages(doc, shape, false) : sheetStages(doc, shape, null);
+  (doc.sweeps ?? []).forEach((sweep, i) => {
+    const points = sweep.axes.reduce((p, a) => p * a.count, 1);
+    const quantities = new Set<string>(sweep.quantities);
+    const perPoint = dimension === 1 ? chainStages(doc, shape, true) : sheetStages(doc, shape, { chern: quantities.has('chern'), winding: quantities.has('winding') });
+    const seconds = points * perPoint.reduce((s, st) => s + st.seconds, 0);
+    const widest = sweep.axes.reduce((best, a, j) => (a.count > sweep.axes[best].count ? j : best), 0);
+    stages.push({
+      stage: `sweep "${sweep.name}"`,
+      seconds,
+      memoryBytes: Math.max(...perPoint.map((st) => st.memoryBytes)),
+      detail: `${sweep.axes.map((a) => a.count).join(' × ')} points × (${perPoint.map((st) => st.stage).join(', ')})`,
+      drivers: [{ pointer: `/sweeps/${i}/axes/${widest}/count`, text: `${sweep.axes.map((a) => a.count).join(' × ')} = ${fmt(points)} sweep points`, excess: points }, ...perPoint[0].drivers],
+    });
+  });
+  return {
+    seconds: stages.reduce((s, st) => s + st.seconds, 0),
+    memoryBytes: Math.max(0, ...stages.map((st) => st.memoryBytes)),
+    stages,
+  };
+}
