@@ -6,4 +6,7 @@ export default defineConfig({
   site: 'http://127.0.0.1',
   output: 'static',
   trailingSlash: 'ignore',
+  // Scripts ship as files, never inline: the Content-Security-Policy of the preview
+  // server (src/cli/static-server.ts) allows scripts from the site's own files only.
+  vite: { build: { assetsInlineLimit: 0 } },
 });

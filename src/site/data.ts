@@ -1,36 +1,68 @@
 /**
  * The site's only data access: reads the results records written by the
- * catalogue (results/catalogue.json and results/models/<id>.json) once per build,
- * and shapes them into the props pages and components render. Pages never read
- * files or compute physics themselves.
+ * catalogue (results/models/<id>.json) once per build, keeps only those that
+ * match the inventory's model files as they are now (a record per file, same
+ * content hash: records/site-selection.ts), validates each against
+ * schemas/report.schema.json, and shapes them into the props pages and
+ * components render. Pages never read files or compute physics themselves.
+ *
+ * Environment (set by `strobe site`): STROBE_RESULTS, the results folder
+ * (default ./results); STROBE_INVENTORY, a JSON list of the model files or
+ * folders (default ["models"]).
  */
 import { existsSync, readFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { resolve } from 'node:path';
 import type { CatalogueSummary, ModelRecord, ModelStatus } from '../catalogue/records/model-record.ts';
+import { selectSiteRecords, selectionReport, type SkippedModel } from '../catalogue/records/site-selection.ts';
+import { summarize } from '../catalogue/records/summary.ts';
 
-export type { CatalogueSummary, ModelRecord, ModelStatus };
+export type { CatalogueSummary, ModelRecord, ModelStatus, SkippedModel };
 
 /** Folder the records are read from: STROBE_RESULTS, else ./results. */
 export function resultsFolder(): string {
   return resolve(process.env.STROBE_RESULTS ?? 'results');
 }
 
-let cached: { summary: CatalogueSummary; records: Map<string, ModelRecord> } | null = null;
+/** The inventory the site must match: STROBE_INVENTORY (JSON list of paths), else ["models"]. */
+export function inventoryPaths(): string[] {
+  const raw = process.env.STROBE_INVENTORY;
+  if (raw === undefined || raw === '') return ['models'];
+  const parsed: unknown = JSON.parse(raw);
+  if (!Array.isArray(parsed) || !parsed.every((p) => typeof p === 'string')) throw new Error(`STROBE_INVENTORY must be a JSON list of paths, got ${raw}`);
+  return parsed;
+}
 
-export function loadSiteData(): { summary: CatalogueSummary; records: Map<string, ModelRecord> } {
+/** Results that cannot be published (unreadable or invalid records): the build stops with this message. */
+export class SiteDataError extends Error {}
+
+interface SiteData {
+  summary: CatalogueSummary;
+  records: Map<string, ModelRecord>;
+  sources: Map<string, string>;
+  skipped: SkippedModel[];
+}
+
+let cached: SiteData | null = null;
+
+export function loadSiteData(): SiteData {
   if (cached) return cached;
   const folder = resultsFolder();
-  const summaryFile = join(folder, 'catalogue.json');
-  if (!existsSync(summaryFile)) {
-    throw new Error(`No results at ${summaryFile}. Run \`npx strobe check\` first (it writes the records the site is built from).`);
+  if (!existsSync(folder)) {
+    throw new SiteDataError(`No results at ${folder}. Run \`npx strobe check\` first (it writes the records the site is built from).`);
   }
-  const summary = JSON.parse(readFileSync(summaryFile, 'utf8')) as CatalogueSummary;
-  const records = new Map<string, ModelRecord>();
-  for (const entry of summary.models) {
-    const file = join(folder, 'models', `${entry.id}.json`);
-    if (existsSync(file)) records.set(entry.id, JSON.parse(readFileSync(file, 'utf8')) as ModelRecord);
+  const selection = selectSiteRecords(folder, inventoryPaths());
+  if (selection.problems.length > 0) {
+    throw new SiteDataError(`The results in ${folder} cannot be published:\n${selection.problems.map((p) => `  ${p.message}`).join('\n')}`);
   }
-  cached = { summary, records };
+  const report = selectionReport(selection);
+  if (report) console.warn(`strobe site: ${report}`);
+  const engine = selection.records[0]?.engine ?? { version: 'none', numericsHash: '0'.repeat(64) };
+  cached = {
+    summary: summarize(selection.records, engine, null),
+    records: new Map(selection.records.map((r) => [r.id, r])),
+    sources: selection.sources,
+    skipped: selection.skipped,
+  };
   return cached;
 }
 
@@ -41,8 +73,8 @@ export function conventionsMarkdown(): string {
 
 /** The source text of a model file as it was verified (for downloads), or null. */
 export function modelSource(record: ModelRecord): string | null {
-  const file = resolve(record.file);
-  return existsSync(file) ? readFileSync(file, 'utf8') : null;
+  const file = loadSiteData().sources.get(record.id);
+  return file !== undefined && existsSync(file) ? readFileSync(file, 'utf8') : null;
 }
 
 export const STATUS_TEXT: Record<ModelStatus, string> = {

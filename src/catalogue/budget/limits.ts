@@ -16,7 +16,7 @@ import type { ModelDocument } from '../model-types.generated.ts';
 import type { CostDriver, StageEstimate, WorkEstimate } from './work-estimate.ts';
 
 export const DEFAULT_TIME_LIMIT_SECONDS = 600;
-export const DEFAULT_MEMORY_LIMIT_BYTES = 2 * 1024 ** 3;
+export const DEFAULT_MEMORY_LIMIT_BYTES = 2e9;
 
 export interface LimitOptions {
   /** From the command line: replaces the default and every file's numerics.timeLimit. */
@@ -82,13 +82,16 @@ export function budgetIssue(estimate: WorkEstimate, limits: ModelLimits): Issue 
   const stage = estimate.stages.reduce((best, s) => (key(s) > key(best) ? s : best), estimate.stages[0]);
   const driver = blame(stage);
   const needs = [overTime ? `about ${durationText(estimate.seconds)} of computing` : '', overMemory ? `about ${bytesText(estimate.memoryBytes)} of memory` : ''].filter(Boolean).join(' and ');
-  const allowed = [overTime ? `${durationText(limits.timeLimitSeconds)} (${limits.timeLimitSource} time limit)` : '', overMemory ? `${bytesText(limits.memoryLimitBytes)} of memory` : ''].filter(Boolean).join(' and ');
+  const allowed = [
+    `${durationText(limits.timeLimitSeconds)} (time limit: ${limits.timeLimitSource === 'default' ? 'the default' : `from the ${limits.timeLimitSource}`})`,
+    `${bytesText(limits.memoryLimitBytes)} of memory`,
+  ].join(' and ');
   const field = fieldName(driver.pointer);
   const advice = driver.pointer.startsWith('/sweeps/') ? `fewer sweep points (${field})` : (FIELD_ADVICE[driver.pointer] ?? `a smaller ${field}`);
   const raise = overTime ? 'raise the time limit with --time-limit or numerics.timeLimit' : 'raise the memory budget with --memory-limit';
   return {
     pointer: driver.pointer,
-    message: `not computed: ${field} asks for ${driver.text}; verification would need ${needs} (estimate; ${stage.stage}: ${stage.detail}), more than the ${allowed} allows`,
+    message: `not computed: ${field} asks for ${driver.text}; verification would need ${needs} (estimate; ${stage.stage}: ${stage.detail}); this model may use ${allowed}`,
     hint: `${advice}; or ${raise}`,
   };
 }

@@ -7,20 +7,24 @@
  * Everything reduces to dense linear algebra on Floquet operators:
  *
  *   one evaluation of U(k, T) for an n × n Bloch matrix costs
- *       EVALUATION_NS · (segment units + EIGEN_UNITS) · max(n, SMALL_N)³  nanoseconds,
+ *       EVALUATION_NS · (segment units + EIGEN_UNITS) · n³ · (1 + SMALL_MATRIX / n)  nanoseconds,
  *
  * a constant segment or a kick being one unit (an exponential and a product),
  * a segment with harmonic terms or a vector potential DRIVEN_SEGMENT_UNITS
  * (Magnus slices), and EIGEN_UNITS the unitary eigen-decomposition. A single
  * constant segment (a static model) is diagonalised directly: STATIC_UNITS in
- * all. The stages count their evaluations:
+ * all. The factor (1 + SMALL_MATRIX/n) carries what does not grow like n³
+ * (loops over n² entries, call overhead): per n³, a 48-state matrix costs
+ * about 2.5 times as much as a 480-state one. The stages count their evaluations:
  *
- *  sheets  band grid  n₁·n₂ momenta (numerics.kGrid, default 24 × 24), plus as many
- *                     again for locating gaps;
+ *  sheets  band grid  n₁·n₂ momenta (numerics.kGrid, default 24 × 24), each also
+ *                     BAND_POINT_NS for locating and naming gaps;
  *          Chern      the refinement grid doubles from max(kGrid) while it stays
- *                     within 128 (worst case: it goes all the way), cached samples reused;
- *          winding    grids 16, 24, …, 124 (growth 1.5) of WINDING_NODES_PER_SEGMENT
- *                     time nodes per segment, each node about one unit;
+ *                     within 128 (worst case: it goes all the way), cached samples
+ *                     reused, CHERN_POINT_NS per point for the link variables;
+ *          winding    WINDING_POINTS momenta (grids 16, 24, 36, … until the value
+ *                     settles) of WINDING_NODES_PER_SEGMENT time nodes per segment,
+ *                     each node about one unit;
  *          ribbon     one evaluation of the (width·n)-state ribbon per momentum
  *                     (numerics.ribbon, default 24 cells, 200 momenta), once per
  *                     edge direction the claims name, and again at 1.5× the width
@@ -31,10 +35,12 @@
  *                     default at most 160 cells), and again at 1.5× the length;
  *  sweeps             every grid point repeats the bulk stages the sweep asks for.
  *
- * Memory: a cached Floquet sample holds n² complex numbers (16 bytes each)
- * plus SAMPLE_OVERHEAD_BYTES; band grids keep every sample, the Chern
- * refinement at most SAMPLER_CACHE_LIMIT; ribbons keep the eigenvectors of
- * every momentum; an open chain holds OPEN_CHAIN_MATRICES dense matrices.
+ * Memory: a Floquet sample takes SAMPLE_BYTES_PER_ENTRY · n² + SAMPLE_OVERHEAD_BYTES
+ * (measured: 950 bytes at n = 2, 3.3 kB at n = 8); the band grid keeps every
+ * sample for the whole analysis, the Chern refinement at most
+ * SAMPLER_CACHE_LIMIT more and the frames of every point; ribbons keep the
+ * eigenvectors of every momentum; an open chain holds OPEN_CHAIN_MATRICES
+ * dense matrices. Heaps of small objects need room to be collected: HEAP_SLACK.
  *
  * The constants were measured with `npm run bench -- work-estimate` (synthetic
  * stacks of Qi–Wu–Zhang sheets and dimer chains, test/support/synthetic-models.ts)
@@ -47,20 +53,32 @@
  */
 import type { ModelDocument } from '../model-types.generated.ts';
 
-/** Nanoseconds per unit per (states)³ in one Floquet evaluation (measured: 25–45 ns for n ≥ 32). */
-export const EVALUATION_NS = 30;
+/** Nanoseconds per unit per (states)³ in one Floquet evaluation of a large matrix. */
+export const EVALUATION_NS = 10;
 /** The unitary eigen-decomposition and the bookkeeping around it, in segment units. */
 export const EIGEN_UNITS = 4;
 /** A static model (one constant segment): one Hermitian eigen-decomposition, in units. */
 export const STATIC_UNITS = 2;
-/** A segment with harmonic terms: Magnus slices, doubled until converged (measured 50–200 units at n = 2–32). */
-export const DRIVEN_SEGMENT_UNITS = 100;
-/** Below this many states per matrix, call overhead dominates: cost as if there were this many. */
-export const SMALL_N = 4;
+/** A segment with harmonic terms: Magnus slices (two exponentials each), doubled until converged. */
+export const DRIVEN_SEGMENT_UNITS = 32;
+/** States below which per-entry work and call overhead outweigh the n³ of dense algebra. */
+export const SMALL_MATRIX = 100;
+/** Per band-grid momentum besides its evaluation: gap location, band groups (measured 100–150 µs). */
+export const BAND_POINT_NS = 100_000;
+/** Per Chern-grid momentum besides its evaluation: overlap determinants of the link variables. */
+export const CHERN_POINT_NS = 20_000;
+/** Momenta the winding-number integral typically needs over its refinement levels (16², 24², 36², 54² and focus points). */
+export const WINDING_POINTS = 8_000;
 /** Time nodes per segment and momentum in the winding-number integral (Gauss–Legendre, about one per radian). */
 export const WINDING_NODES_PER_SEGMENT = 10;
-/** Bytes per cached Floquet sample besides its n² complex entries (typed arrays, object headers). */
-export const SAMPLE_OVERHEAD_BYTES = 600;
+/** Bytes per entry of a Floquet sample (eigenvectors and their copies, 16 bytes per complex number). */
+export const SAMPLE_BYTES_PER_ENTRY = 32;
+/** Bytes per Floquet sample besides its entries (typed arrays, object headers, cache maps). */
+export const SAMPLE_OVERHEAD_BYTES = 900;
+/** Bytes per Chern-grid point for the frames of a band group besides its entries. */
+export const FRAME_OVERHEAD_BYTES = 300;
+/** Live heap to memory held, for stages that keep many small objects (garbage awaiting collection). */
+export const HEAP_SLACK = 1.5;
 /** Samples the Floquet sampler keeps before it starts over (quasienergy-bands.ts, cacheLimit). */
 export const SAMPLER_CACHE_LIMIT = 1 << 16;
 /** Dense matrices of the open chain's size alive at once (Hamiltonian, exponential, product, eigenvectors). */
@@ -73,7 +91,7 @@ export const DEFAULTS = {
   sheetGrid: 24,
   chainGrid: 128,
   chernMaxGrid: 128,
-  windingGrids: [16, 24, 36, 54, 82, 124],
+  windingGrid: 124,
   ribbonWidth: 24,
   ribbonMomenta: 200,
   chainLength: 160,
@@ -134,13 +152,15 @@ function shapeOf(doc: ModelDocument): Shape {
   return { states, units: Math.max(1, units), isStatic: segments.length === 1 && driven === 0, segments: segments.length, driven };
 }
 
+/** Nanoseconds of one unit of dense algebra on n states. */
+const unitNs = (n: number) => EVALUATION_NS * n ** 3 * (1 + SMALL_MATRIX / n);
+
 /** Nanoseconds of one Floquet evaluation on n states. */
 function evaluationNs(shape: Shape, n: number): number {
-  const units = shape.isStatic ? STATIC_UNITS : shape.units + EIGEN_UNITS;
-  return EVALUATION_NS * units * Math.max(n, SMALL_N) ** 3;
+  return (shape.isStatic ? STATIC_UNITS : shape.units + EIGEN_UNITS) * unitNs(n);
 }
 
-const sampleBytes = (n: number) => n * n * COMPLEX_BYTES + SAMPLE_OVERHEAD_BYTES;
+const sampleBytes = (n: number) => SAMPLE_BYTES_PER_ENTRY * n * n + SAMPLE_OVERHEAD_BYTES;
 const fmt = (x: number) => (x >= 1e4 ? x.toExponential(1).replace('e+', 'e') : String(Math.round(x)));
 
 function structureDrivers(shape: Shape): CostDriver[] {
@@ -158,11 +178,13 @@ function sheetStages(doc: ModelDocument, shape: Shape, bulkOnly: { chern: boolea
   const evalS = evaluationNs(shape, n) * 1e-9;
   const stages: StageEstimate[] = [];
   const bandPoints = g1 * g2;
+  // The band grid's samples stay alive for the whole analysis: every later stage holds them too.
+  const bandBytes = HEAP_SLACK * bandPoints * sampleBytes(n);
   stages.push({
     stage: 'band grid',
-    seconds: 2 * bandPoints * evalS,
-    memoryBytes: bandPoints * sampleBytes(n),
-    detail: `${bandPoints} momenta (and as many to locate gaps) × ${n}-state Floquet operators`,
+    seconds: bandPoints * (evalS + BAND_POINT_NS * 1e-9),
+    memoryBytes: bandBytes,
+    detail: `${bandPoints} momenta × ${n}-state Floquet operators`,
     drivers: [...gridDriver, ...structureDrivers(shape)],
   });
   if (bulkOnly === null || bulkOnly.chern) {
@@ -171,20 +193,19 @@ function sheetStages(doc: ModelDocument, shape: Shape, bulkOnly: { chern: boolea
     const points = final * final;
     stages.push({
       stage: 'Chern numbers',
-      seconds: Math.max(0, points - bandPoints) * evalS,
-      memoryBytes: Math.min(points, SAMPLER_CACHE_LIMIT) * sampleBytes(n),
+      seconds: Math.max(0, points - bandPoints) * (evalS + CHERN_POINT_NS * 1e-9),
+      memoryBytes: bandBytes + HEAP_SLACK * (Math.min(points, SAMPLER_CACHE_LIMIT) * sampleBytes(n) + points * ((COMPLEX_BYTES * n * n) / 2 + FRAME_OVERHEAD_BYTES)),
       detail: `refinement up to ${final} × ${final} momenta × ${n}-state Floquet operators`,
       drivers: [...(kGrid ? [{ ...gridDriver[0], text: `a starting Chern grid of ${Math.max(g1, g2)} × ${Math.max(g1, g2)}`, excess: points / 96 ** 2 }] : []), ...structureDrivers(shape)],
     });
   }
   if (bulkOnly === null || bulkOnly.winding) {
-    const points = DEFAULTS.windingGrids.reduce((sum, g) => sum + g * g, 0);
-    const nodes = WINDING_NODES_PER_SEGMENT * shape.units;
+    const nodes = WINDING_NODES_PER_SEGMENT * shape.segments;
     stages.push({
       stage: 'gap winding numbers',
-      seconds: points * nodes * EVALUATION_NS * Math.max(n, SMALL_N) ** 3 * 1e-9,
-      memoryBytes: DEFAULTS.windingGrids[DEFAULTS.windingGrids.length - 1] ** 2 * sampleBytes(n),
-      detail: `grids up to ${DEFAULTS.windingGrids.at(-1)} × ${DEFAULTS.windingGrids.at(-1)} momenta × ${nodes} time nodes × ${n}-state operators`,
+      seconds: WINDING_POINTS * nodes * unitNs(n) * 1e-9,
+      memoryBytes: bandBytes + HEAP_SLACK * DEFAULTS.windingGrid ** 2 * sampleBytes(n),
+      detail: `about ${WINDING_POINTS} momenta × ${nodes} time nodes × ${n}-state operators`,
       drivers: structureDrivers(shape),
     });
   }
@@ -204,7 +225,7 @@ function sheetStages(doc: ModelDocument, shape: Shape, bulkOnly: { chern: boolea
     stages.push({
       stage: 'ribbon spectra',
       seconds,
-      memoryBytes: momenta * sampleBytes(second) + RIBBON_WORK_MATRICES * second * second * COMPLEX_BYTES,
+      memoryBytes: bandBytes + momenta * sampleBytes(second) + RIBBON_WORK_MATRICES * second * second * COMPLEX_BYTES,
       detail: `${cuts} × ${momenta} momenta × ${states}-state ribbon operators, then ${second} states`,
       drivers: [...drivers, ...structureDrivers(shape)],
     });

@@ -22,6 +22,7 @@ import type { NumericsHints } from '../model-types.generated.ts';
 import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.ts';
 import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
 import { DEFAULT_WINDING_TOLERANCE } from '../../numerics/sheet/winding/gap-winding.ts';
+import { followableGridAdvice } from './grid-advice.ts';
 
 export interface PointResult {
   dimension: number;
@@ -68,6 +69,7 @@ export function analysePoint(
     const anomalous = classifySheet(entries);
     finishAnomalousClaims(verdicts, claims, anomalous, 2, entries);
     noteEverywhere(verdicts, entries, loosened);
+    followableGridAdvice(verdicts, loaded.document.numerics);
     return { dimension, analysis: sheetAnalysis(portrait, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
   }
   if (dimension === 1) {
@@ -80,6 +82,7 @@ export function analysePoint(
     const anomalous = classifyChain(pi);
     finishAnomalousClaims(verdicts, claims, anomalous, 1, entries);
     noteEverywhere(verdicts, entries, loosened);
+    followableGridAdvice(verdicts, loaded.document.numerics);
     return { dimension, analysis: chainAnalysis(view, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
   }
   throw new Error(`lattice dimension ${dimension} is not supported (only chains and sheets)`);

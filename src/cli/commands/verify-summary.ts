@@ -54,7 +54,7 @@ export const describeCheckOptions = `Options of strobe check (verification):
                    exceeds it is refused before computing, naming the field and the
                    estimate; one that runs over it is stopped and reported as failed
                    (models run in worker threads, so the limit holds for every --workers)
-  --memory-limit MB  memory budget per model (default ${DEFAULT_MEMORY_LIMIT_BYTES / 1024 ** 2}); a model whose
+  --memory-limit MB  memory budget per model (default ${DEFAULT_MEMORY_LIMIT_BYTES / 1e6}); a model whose
                    estimated memory exceeds it is refused
   --strict         also fail when a model is unsettled
   --json           print the catalogue summary as JSON instead of the table
@@ -111,7 +111,7 @@ export function parseCheckOptions(argv: string[]): CheckOptions {
         const v = value();
         const mb = Number(v);
         if (!Number.isFinite(mb) || mb <= 0) throw new UsageError(`--memory-limit expects megabytes > 0, got "${v}"`);
-        o.memoryLimitBytes = mb * 1024 ** 2;
+        o.memoryLimitBytes = mb * 1e6;
         break;
       }
       case '--strict':
