@@ -4,10 +4,10 @@
  * by in diagnostics, results records and pages, and a fingerprint of its bytes.
  *
  * Paths are relative, never absolute: relative to the working directory for
- * files inside it (models/qwz-sheet.json), otherwise relative to the folder
- * that holds the argument they were found under (checking /data/lab/models
- * gives models/x.json; checking /data/lab/one.json gives one.json). So records
- * and published pages never carry the layout of a user's disk.
+ * files inside it (models/qwz-sheet.json), otherwise the file's folder and
+ * name (/data/lab/models/x.json is models/x.json, however it was named on the
+ * command line). So records and published pages never carry the layout of a
+ * user's disk, and one file always has one path.
  *
  * Record ids are derived from file names only for files that did not load;
  * they become file and page names, so they are made safe here: kebab-case,
@@ -37,13 +37,13 @@ function slashes(p: string): string {
   return p.split(path.sep).join('/');
 }
 
-/** The path a file is known by, given the argument it was found under (see the module comment). */
-export function inventoryPath(file: string, argument: string = file): string {
+/** The path a file is known by (see the module comment): the same however the file was named on the command line. */
+export function inventoryPath(file: string): string {
   const absolute = path.resolve(file);
   const inCwd = path.relative(process.cwd(), absolute);
   if (inCwd !== '' && !inCwd.startsWith('..') && !path.isAbsolute(inCwd)) return slashes(inCwd);
-  const fromArgument = path.relative(path.dirname(path.resolve(argument)), absolute);
-  return fromArgument === '' || path.isAbsolute(fromArgument) ? path.basename(absolute) : slashes(fromArgument);
+  const folder = path.basename(path.dirname(absolute));
+  return folder === '' ? path.basename(absolute) : `${folder}/${path.basename(absolute)}`;
 }
 
 /** Model file candidates under the given files or folders, each once however often it is named. */
@@ -51,7 +51,7 @@ export function listInventory(paths: readonly string[]): { files: InventoryFile[
   const files: InventoryFile[] = [];
   const missing: MissingPath[] = [];
   const seen = new Set<string>();
-  const add = (absolute: string, argument: string) => {
+  const add = (absolute: string) => {
     let key = absolute;
     try {
       key = realpathSync(absolute);
@@ -60,7 +60,7 @@ export function listInventory(paths: readonly string[]): { files: InventoryFile[
     }
     if (seen.has(key)) return;
     seen.add(key);
-    files.push({ absolute, path: inventoryPath(absolute, argument) });
+    files.push({ absolute, path: inventoryPath(absolute) });
   };
   for (const argument of paths) {
     const absolute = path.resolve(argument);
@@ -68,7 +68,7 @@ export function listInventory(paths: readonly string[]): { files: InventoryFile[
     try {
       info = statSync(absolute);
     } catch {
-      missing.push({ path: inventoryPath(absolute, argument), message: 'no such file or folder' });
+      missing.push({ path: inventoryPath(absolute), message: 'no such file or folder' });
       continue;
     }
     if (info.isDirectory() && !absolute.endsWith('.json')) {
@@ -76,11 +76,11 @@ export function listInventory(paths: readonly string[]): { files: InventoryFile[
       try {
         names = readdirSync(absolute, { withFileTypes: true }).map((e) => e.name);
       } catch (error) {
-        missing.push({ path: inventoryPath(absolute, argument), message: `cannot read folder: ${(error as Error).message}` });
+        missing.push({ path: inventoryPath(absolute), message: `cannot read folder: ${(error as Error).message}` });
         continue;
       }
-      for (const name of names.filter((n) => n.endsWith('.json')).sort((a, b) => a.localeCompare(b))) add(path.join(absolute, name), argument);
-    } else add(absolute, argument);
+      for (const name of names.filter((n) => n.endsWith('.json')).sort((a, b) => a.localeCompare(b))) add(path.join(absolute, name));
+    } else add(absolute);
   }
   return { files, missing };
 }

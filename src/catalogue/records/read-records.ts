@@ -41,7 +41,7 @@ export function readRecordFile(file: string): { record: ModelRecord } | { proble
     // The schema is a oneOf of the two record kinds; the model-record branch's errors say what is wrong.
     const first = errors.find((e) => !e.schemaPath.includes('catalogueSummary')) ?? errors[0];
     const where = first ? first.instancePath || '(record)' : '(record)';
-    const what = !isModelRecord ? 'not a model record' : first ? `${first.message ?? 'is invalid'}${first.params && 'missingProperty' in first.params ? ` "${String(first.params.missingProperty)}"` : ''}` : 'does not match report.schema.json';
+    const what = !isModelRecord ? 'not a model record' : (first?.message ?? 'does not match report.schema.json');
     const located = positionOf(document, nodeAt(document, where === '(record)' ? '' : where)?.offset ?? 0);
     return { problem: { file, message: `${file}:${located.line}:${located.column} ${where}: ${what} (schemas/report.schema.json); ${RERUN}` } };
   }

@@ -58,7 +58,8 @@ export function selectSiteRecords(resultsDir: string, inventory: readonly string
     }
   }
   records.sort((a, b) => compareCodePoints(a.id, b.id));
-  const leftovers = folder.records.filter((r) => !used.has(r.id)).map((r) => r.id);
+  const inInventory = new Set(files.map((f) => f.path));
+  const leftovers = folder.records.filter((r) => !used.has(r.id) && !inInventory.has(r.file)).map((r) => r.id);
   return { records, sources, skipped, leftovers, problems: folder.problems };
 }
 
