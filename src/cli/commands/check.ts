@@ -71,7 +71,8 @@ Examples:
       }
       for (const failure of report.failures) {
         // Errors carry the ✗; warnings of the same file are listed under them, marked as warnings.
-        for (const d of failure.diagnostics) io.stdout(d.severity === 'warning' ? `  ${formatDiagnostic(d)}\n` : `✗ ${formatDiagnostic(d)}\n`);
+        for (const d of failure.diagnostics.filter((x) => x.severity === 'error')) io.stdout(`✗ ${formatDiagnostic(d)}\n`);
+        for (const d of failure.diagnostics.filter((x) => x.severity === 'warning')) io.stdout(`  ${formatDiagnostic(d)}\n`);
       }
       const noun = checked === 1 ? 'model' : 'models';
       io.stdout(`${checked} ${noun} checked: ${report.models.length} valid, ${report.failures.length} invalid\n`);
