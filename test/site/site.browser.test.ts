@@ -23,12 +23,13 @@ describe.skipIf(!hasBrowser)('catalogue site in a browser', () => {
   let server: RunningServer;
   let context: BrowserContext;
   let page: Page;
+  const violations: string[] = [];
 
   beforeAll(async () => {
     const report = await verifyCatalogue(['test/fixtures/site'], { workers: 0, cache: false });
     writeResults(results, report.records, report.summary, report.timings);
     const build = spawnSync(process.execPath, ['node_modules/astro/astro.js', 'build', '--silent', '--outDir', dist], {
-      env: { ...process.env, STROBE_RESULTS: results },
+      env: { ...process.env, STROBE_RESULTS: results, STROBE_INVENTORY: JSON.stringify(['test/fixtures/site']) },
       encoding: 'utf8',
     });
     if (build.status !== 0) throw new Error(`site build failed:\n${build.stderr}\n${build.stdout}`);
@@ -39,6 +40,11 @@ describe.skipIf(!hasBrowser)('catalogue site in a browser', () => {
       args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
     });
     page = await context.newPage();
+    // Anything the Content-Security-Policy of the server blocks shows up here (and as a console error).
+    page.on('console', (message) => {
+      if (message.type() === 'error') violations.push(message.text());
+    });
+    page.on('pageerror', (error) => violations.push(error.message));
   }, 600_000);
 
   afterAll(async () => {
@@ -105,5 +111,23 @@ describe.skipIf(!hasBrowser)('catalogue site in a browser', () => {
     expect(text).toMatch(/site-broken\.json:\d+:\d+/);
     expect(text).toContain('/drive/segments/0/hoppings/0/to');
     expect(text).toContain('no orbital "C"');
+  });
+
+  it('needs nothing the Content-Security-Policy forbids: no inline script, no inline handler, no console errors', async () => {
+    violations.length = 0;
+    for (const path of ['', 'models/site-sheet/', 'models/site-chain/', 'models/site-broken/', 'conventions/']) {
+      const response = await page.goto(`${server.url}${path}`);
+      expect(response?.headers()['content-security-policy']).toContain("script-src 'self'");
+      const inline = await page.evaluate(() => ({
+        scripts: [...document.querySelectorAll('script')].filter((s) => !s.src).length,
+        handlers: [...document.querySelectorAll('*')].filter((e) => [...e.attributes].some((a) => a.name.startsWith('on'))).length,
+      }));
+      expect(inline, path).toEqual({ scripts: 0, handlers: 0 });
+    }
+    // The filter script still runs under the policy.
+    await page.goto(server.url);
+    await page.fill('#inventory-search', 'sign error');
+    await expect.poll(() => page.locator('table.inventory tbody tr:not([hidden])').count()).toBe(1);
+    expect(violations).toEqual([]);
   });
 });
