@@ -6,15 +6,10 @@ import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { main } from '../../src/cli/main.ts';
 import { progressReporter } from '../../src/cli/commands/verify-summary.ts';
+import { runStrobe } from '../support/run-cli.ts';
 
-async function strobe(argv: string[], cwd = process.cwd()) {
-  let stdout = '';
-  let stderr = '';
-  const code = await main(argv, { stdout: (t) => void (stdout += t), stderr: (t) => void (stderr += t), cwd });
-  return { code, stdout, stderr };
-}
+const strobe = runStrobe;
 
 describe('warnings', () => {
   it('of a model that loads are printed by strobe check and marked as warnings', async () => {

@@ -40,7 +40,12 @@ export interface ProgressEvent {
 }
 
 export interface VerifyCatalogueOptions extends LimitOptions {
-  /** Worker threads (default os.availableParallelism(); 0 runs in this thread, unless a time limit needs a worker). */
+  /**
+   * Worker threads (default os.availableParallelism()). 0 runs in this thread, where a
+   * running model cannot be stopped: time limits are then enforced only when
+   * timeLimitSeconds is given (one worker thread is used for it); the work estimate
+   * refuses over-budget models either way.
+   */
   workers?: number;
   /** true (default): .strobe-cache/ under the working directory; false: no cache; or a cache object. */
   cache?: boolean | ResultCache;
@@ -158,7 +163,8 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
   await runTasks<VerifyTask, ModelOutcome>(tasks, {
     entry: options.taskModule ?? defaultTaskModule(),
     ...(options.workers !== undefined ? { size: options.workers } : {}),
-    timeLimitMs: (i) => 1000 * pending[i].budget.timeLimitSeconds,
+    // workers: 0 asks for this thread, where nothing can stop a model; an explicit time limit still gets its worker.
+    ...(options.workers === 0 && options.timeLimitSeconds === undefined ? {} : { timeLimitMs: (i: number) => 1000 * pending[i].budget.timeLimitSeconds }),
     onProgress: (i, step) => {
       if (step === 'started') started.set(i, performance.now());
       const p = pending[i];

@@ -46,7 +46,8 @@ export interface CheckOptions {
 
 export const describeCheckOptions = `Options of strobe check (verification):
   --workers N      worker threads (default: number of cores; 0 = run in this process,
-                   except with --time-limit, which needs a worker thread: then one is used)
+                   where no time limit can stop a model: the work estimate still refuses
+                   what is too large, and with --time-limit one worker thread is used)
   --no-cache       recompute every model (default: reuse .strobe-cache/ for unchanged models)
   --shard i/n      verify only shard i of n (split by a hash of the model id) for parallel CI jobs
   --time-limit S   time limit per model, seconds, for every model (default: the model's
@@ -262,7 +263,7 @@ export function junitSuites(report: Pick<CatalogueReport, 'records' | 'timings'>
     const time = (report.timings[r.id]?.totalMs ?? 0) / 1000;
     if (r.status === 'invalid' || r.status === 'failed') {
       const message = r.status === 'invalid' ? `invalid: ${r.statusReason}` : `failed: ${r.statusReason}`;
-      const detail = r.diagnostics.map((d) => formatDiagnostic(d)).join('\n');
+      const detail = r.diagnostics.map((d) => `${d.file}:${d.line}:${d.column} ${d.pointer} ${d.message}${d.hint ? ` (${d.hint})` : ''}`).join('\n');
       return { name: r.id, timeSeconds: time, cases: [{ name: 'load and compute', classname: r.id, timeSeconds: time, outcome: 'error' as const, message, detail }] };
     }
     // Compute time is measured per model, not per claim: the suite carries it and cases report 0.

@@ -5,16 +5,11 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { appendFileSync, copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { main } from '../../../src/cli/main.ts';
 import { selectSiteRecords, selectionReport } from '../../../src/catalogue/records/site-selection.ts';
 import { readRecordFile } from '../../../src/catalogue/records/read-records.ts';
+import { runStrobe } from '../../support/run-cli.ts';
 
-async function strobe(argv: string[]) {
-  let stdout = '';
-  let stderr = '';
-  const code = await main(argv, { stdout: (t) => void (stdout += t), stderr: (t) => void (stderr += t) });
-  return { code, stdout, stderr };
-}
+const strobe = runStrobe;
 
 describe('incremental results and fresh records', () => {
   const root = mkdtempSync(join(tmpdir(), 'strobe-fresh-'));
