@@ -35,7 +35,8 @@ export function writeTextAtomic(file: string, text: string): void {
   }
 }
 
-function alive(pid: number): boolean {
+/** Whether a process with this id is running (a leftover of a dead one may be removed). */
+export function processAlive(pid: number): boolean {
   try {
     process.kill(pid, 0);
     return true;
@@ -54,7 +55,7 @@ export function removeStaleTemporaries(folder: string): void {
   }
   for (const name of names) {
     const m = TEMPORARY.exec(name);
-    if (m && !alive(Number(m[1]))) rmSync(join(folder, name), { force: true });
+    if (m && !processAlive(Number(m[1]))) rmSync(join(folder, name), { force: true });
   }
 }
 

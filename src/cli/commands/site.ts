@@ -13,12 +13,13 @@
  * when it succeeds; stopping `strobe site` (Ctrl-C, SIGTERM) stops the build too.
  */
 import { spawn } from 'node:child_process';
-import { existsSync, renameSync, rmSync } from 'node:fs';
+import { existsSync, readdirSync, renameSync, rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, asStreams, type Command, type CommandIO } from '../command.ts';
 import { parseCheckOptions, runVerifiedCheck, UsageError } from './verify-summary.ts';
 import { portProblem, serveStatic } from '../static-server.ts';
 import { selectSiteRecords, selectionReport } from '../../catalogue/records/site-selection.ts';
+import { processAlive } from '../../catalogue/records/write.ts';
 
 const HELP = `Verifies the catalogue (like strobe check: writes results/), builds the static
 site into dist/ from the results records, and with --serve serves it until
@@ -168,7 +169,11 @@ export const siteCommand: Command = {
     io.stdout(`building the site from ${selection.records.length} record(s) in ${check.out}/…\n`);
     const dist = join(io.cwd, 'dist');
     const temporary = join(io.cwd, `.dist-building-${process.pid}`);
-    rmSync(temporary, { recursive: true, force: true });
+    // Half-built folders of runs that did not live to clean up (killed with SIGKILL).
+    for (const name of readdirSync(io.cwd)) {
+      const m = /^\.dist-building-(\d+)$/.exec(name);
+      if (m && (Number(m[1]) === process.pid || !processAlive(Number(m[1])))) rmSync(join(io.cwd, name), { recursive: true, force: true });
+    }
     try {
       const code = await runAstroBuild(io.cwd, temporary, { STROBE_RESULTS: results, STROBE_INVENTORY: JSON.stringify(inventory) }, io);
       if (code !== 0) return EXIT_FAILED;
