@@ -4,7 +4,7 @@
  * and shapes them into the props pages and components render. Pages never read
  * files or compute physics themselves.
  */
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync, readFileSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { CatalogueSummary, ModelRecord, ModelStatus } from '../catalogue/records/model-record.ts';
 
@@ -34,47 +34,36 @@ export function loadSiteData(): { summary: CatalogueSummary; records: Map<string
   return cached;
 }
 
-/** The conventions document (Markdown) that every verdict on the site refers to. */
-export function conventionsMarkdown(): string {
-  return readFileSync(resolve('docs', 'conventions.md'), 'utf8');
+/** The engine that produced the records the site is built from. */
+export function siteEngine(): CatalogueSummary['engine'] {
+  return loadSiteData().summary.engine;
 }
 
-/** The source text of a model file as it was verified (for downloads), or null. */
-export function modelSource(record: ModelRecord): string | null {
-  const file = resolve(record.file);
-  return existsSync(file) ? readFileSync(file, 'utf8') : null;
+/** A project document (docs/<name>.md). */
+export function documentMarkdown(name: 'conventions' | 'model-format'): string {
+  return readFileSync(resolve('docs', `${name}.md`), 'utf8');
 }
 
-export const STATUS_TEXT: Record<ModelStatus, string> = {
-  verified: 'verified',
-  disputed: 'disputed',
-  unsettled: 'unsettled',
-  'portrait-only': 'no claims',
-  invalid: 'invalid',
-  failed: 'not computed',
-};
-
-export const STATUS_EXPLANATION: Record<ModelStatus, string> = {
-  verified: 'every claim was confirmed by recomputation',
-  disputed: 'at least one claim is contradicted by recomputation',
-  unsettled: 'no claim is contradicted, but at least one could not be settled numerically',
-  'portrait-only': 'the file makes no claims; the computed invariants are shown',
-  invalid: 'the model file did not load or compile',
-  failed: 'the computation did not finish',
-};
-
-/** Formats a quasienergy in units of π/T as text ("0", "π", "0.5π"). */
-export function quasienergyText(value: number | null): string {
-  if (value === null) return '—';
-  if (Math.abs(value) < 1e-12) return '0';
-  if (Math.abs(value - 1) < 1e-12) return 'π/T';
-  return `${Number(value.toPrecision(4))}π/T`;
+/**
+ * The records the site publishes, sorted by title: every record except drafts
+ * (files marked "draft": true are verified but not published).
+ */
+export function publishedRecords(): ModelRecord[] {
+  const { records } = loadSiteData();
+  return [...records.values()].filter((r) => !r.model?.draft).sort((a, b) => (a.model?.title ?? a.id).localeCompare(b.model?.title ?? b.id) || a.id.localeCompare(b.id));
 }
 
-export function numberText(value: number | boolean | null | undefined, digits = 4): string {
-  if (value === null || value === undefined) return '—';
-  if (typeof value === 'boolean') return value ? 'yes' : 'no';
-  if (Number.isInteger(value)) return String(value);
-  if (Math.abs(value) !== 0 && (Math.abs(value) < 1e-3 || Math.abs(value) >= 1e5)) return value.toExponential(2);
-  return String(Number(value.toPrecision(digits)));
+/**
+ * The day a record was written (YYYY-MM-DD, UTC), from the file's modification
+ * time; SOURCE_DATE_EPOCH (seconds), when set, replaces it so that builds can
+ * be reproduced byte for byte. Records themselves carry no time on purpose.
+ */
+export function recordDate(record: Pick<ModelRecord, 'id'>): string | null {
+  const epoch = process.env.SOURCE_DATE_EPOCH;
+  if (epoch && /^\d+$/.test(epoch)) return new Date(Number(epoch) * 1000).toISOString().slice(0, 10);
+  try {
+    return statSync(join(resultsFolder(), 'models', `${record.id}.json`)).mtime.toISOString().slice(0, 10);
+  } catch {
+    return null;
+  }
 }

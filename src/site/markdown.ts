@@ -1,20 +1,24 @@
 /**
  * Renders the untrusted Markdown of a model description to safe HTML.
  *
- * Pipeline: Markdown → mdast (remark, with remark-math for $…$ and $$…$$)
+ * Pipeline: Markdown → mdast (remark, with remark-gfm for tables and
+ * remark-math for $…$ and $$…$$)
  * → hast (remark-rehype, raw HTML in the source is dropped, never passed through)
  * → sanitised with rehype-sanitize (GitHub-style allow list, plus the two math
  * classes) → math typeset by KaTeX on the server (rehype-katex) → HTML.
  * Sanitising happens before KaTeX, so only KaTeX's own output is trusted.
  */
 import { remark } from 'remark';
+import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkRehype from 'remark-rehype';
 import rehypeSanitize, { defaultSchema, type Options as SanitizeSchema } from 'rehype-sanitize';
 import rehypeKatex from 'rehype-katex';
 import rehypeStringify from 'rehype-stringify';
+import { escapeHtml } from './render/escape.ts';
+import { rehypeWrapTables } from './rehype-wrap-tables.ts';
 
-const sanitizeSchema: SanitizeSchema = {
+export const sanitizeSchema: SanitizeSchema = {
   ...defaultSchema,
   attributes: {
     ...defaultSchema.attributes,
@@ -22,11 +26,16 @@ const sanitizeSchema: SanitizeSchema = {
   },
 };
 
+/** KaTeX for untrusted text: no trusted commands, bounded macro expansion and sizes, errors shown inline. */
+export const KATEX_MARKDOWN_OPTIONS = { strict: 'ignore' as const, trust: false, maxExpand: 1000, maxSize: 20, throwOnError: false };
+
 const processor = remark()
+  .use(remarkGfm)
   .use(remarkMath)
   .use(remarkRehype)
   .use(rehypeSanitize, sanitizeSchema)
-  .use(rehypeKatex, { strict: 'ignore' })
+  .use(rehypeKatex, KATEX_MARKDOWN_OPTIONS)
+  .use(rehypeWrapTables)
   .use(rehypeStringify);
 
 /** Markdown (untrusted) → sanitised HTML with server-rendered math. Never throws for bad input. */
@@ -39,11 +48,4 @@ export function renderMarkdown(markdown: string): string {
   }
 }
 
-export function escapeHtml(text: string): string {
-  return text
-    .replaceAll('&', '&amp;')
-    .replaceAll('<', '&lt;')
-    .replaceAll('>', '&gt;')
-    .replaceAll('"', '&quot;')
-    .replaceAll("'", '&#39;');
-}
+export { escapeHtml };
