@@ -1,7 +1,7 @@
 /**
  * Screenshots of the built site for a person to look at:
- *   npx tsx scripts/screenshot-pages.mts [--widths 1366,390] [--out DIR] [--slice PX] "<path>=<name>[=<css selector>]" …
- * serves dist/ on 127.0.0.1, opens each path in Debian Chromium at each width and
+ *   npx tsx scripts/screenshot-pages.mts [--widths 1366,390] [--out DIR] [--slice PX] [--dist DIR] "<path>=<name>[=<css selector>]" …
+ * serves dist/ (or DIR) on 127.0.0.1, opens each path in Debian Chromium at each width and
  * writes DIR/<name>-<width>.png (default DIR test-results/screenshots; the whole
  * page, or the last element matching the selector). Prints, per page and width,
  * any horizontal overflow and console errors, so they are not missed. --slice
@@ -17,15 +17,17 @@ const args = process.argv.slice(2);
 let widths = [1366, 390];
 let out = join('test-results', 'screenshots');
 let slice = 0;
+let root = 'dist';
 const targets: string[] = [];
 for (let i = 0; i < args.length; i++) {
   if (args[i] === '--widths') widths = args[++i].split(',').map(Number);
   else if (args[i] === '--out') out = args[++i];
   else if (args[i] === '--slice') slice = Number(args[++i]);
+  else if (args[i] === '--dist') root = args[++i];
   else targets.push(args[i]);
 }
 mkdirSync(out, { recursive: true });
-const server = await serveStatic('dist', 0);
+const server = await serveStatic(root, 0);
 const ctx = await chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'chr-')), { executablePath: '/usr/bin/chromium', headless: true, args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'] });
 const page = await ctx.newPage();
 const errors: string[] = [];
@@ -33,7 +35,8 @@ page.on('console', (m) => m.type() === 'error' && errors.push(m.text()));
 page.on('pageerror', (e) => errors.push(String(e)));
 for (const width of widths) {
   await page.setViewportSize({ width, height: width < 600 ? 844 : 900 });
-  for (const [path, name, selector] of targets.map((a) => a.split('='))) {
+  // The path may hold '=' (a query string): split before the kebab-case name.
+  for (const [path, name, selector] of targets.map((a) => a.split(/=(?=[a-z0-9-]+(?:=|$))/))) {
     errors.length = 0;
     await page.goto(server.url.replace(/\/$/, '') + path, { waitUntil: 'networkidle' });
     const file = join(out, `${name}-${width}.png`);

@@ -184,7 +184,7 @@ export function valueText(value: number | boolean | null | undefined, digits = 4
   if (Number.isInteger(value)) return minus(String(value));
   if (Math.abs(value) !== 0 && (Math.abs(value) < 1e-3 || Math.abs(value) >= 1e5)) {
     const [mantissa, exponent] = value.toExponential(2).split('e');
-    return `${minus(mantissa)}×10${superscript(exponent.replace(/^\+/, ''))}`;
+    return `${minus(String(Number(mantissa)))}×10${superscript(exponent.replace(/^\+/, ''))}`;
   }
   return minus(String(Number(value.toPrecision(digits))));
 }
@@ -192,4 +192,37 @@ export function valueText(value: number | boolean | null | undefined, digits = 4
 const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
 function superscript(text: string): string {
   return [...text].map((c) => SUPERSCRIPT[c] ?? c).join('');
+}
+
+const SUBSCRIPT_DIGIT: Record<string, string> = { '1': '₁', '2': '₂' };
+
+/** A quasienergy written by the engine as 1.0000 or 0.5000 (units π/T), as text. */
+function labelText(text: string): string {
+  return quasienergyText(Number(text));
+}
+
+/**
+ * A consistency relation checked by the engine, in words: the engine names
+ * them "chern-sum", "winding-step:band-0", "edge-winding:f1:low:1.0000",
+ * "edge-step:f1:high:band-1"; chain relations are already in words.
+ */
+export function consistencyName(name: string): string {
+  if (name === 'chern-sum') return 'the Chern numbers of all bands add up to 0';
+  let m = /^winding-step:band-(\d+)$/.exec(name);
+  if (m) return `C_${Number(m[1]) + 1} = W above band ${Number(m[1]) + 1} − W below it`;
+  m = /^edge-winding:f(\d):(low|high):(-?[\d.]+)$/.exec(name);
+  if (m) return `edge count = ${m[2] === 'low' ? '±' : '∓'}W at ε = ${labelText(m[3])}, ${edgeName(Number(m[1]), m[2] as 'low' | 'high')}`;
+  m = /^edge-step:f(\d):(low|high):band-(\d+)$/.exec(name);
+  if (m) return `edge counts change across band ${Number(m[3]) + 1} by its Chern number, ${edgeName(Number(m[1]), m[2] as 'low' | 'high')}`;
+  return name;
+}
+
+/** Engine detail text with gap labels, lattice vectors and minus signs written for reading. */
+export function consistencyDetail(detail: string): string {
+  return detail
+    .replace(/W\((-?[\d.]+)\)/g, (_, g: string) => `W_${gapSubscript(Number(g))}`)
+    .replace(/\(gap (-?[\d.]+)\)/g, (_, g: string) => `(ε = ${labelText(g)})`)
+    .replace(/\ba([12])\b/g, (_, d: string) => `a${SUBSCRIPT_DIGIT[d]}`)
+    .replace(/-0\.0+\b/g, '0')
+    .replace(/(^|[\s(=,])-(\d)/g, '$1−$2');
 }

@@ -53,8 +53,11 @@ export function certificateView(c: Certificate): CertificateView {
   if (c.residual !== null) {
     const passed = c.residualTolerance === null ? null : c.residual <= c.residualTolerance;
     const text = `${valueText(c.residual)}${c.residualTolerance === null ? '' : ` ${passed ? '≤' : '>'} tolerance ${valueText(c.residualTolerance)}`}`;
-    lines.push({ term: 'distance from the nearest integer', detail: text, passed });
-    summary.push(`|x − n| = ${text.replace(' tolerance', '')}`);
+    // An integer estimate's residual is its distance from the integer; otherwise (symmetries, gaps) a plain residual.
+    const integer = c.raw !== null;
+    const term = integer ? 'distance from the nearest integer' : c.stage === 'gaps' ? 'difference from the claimed value' : 'residual';
+    lines.push({ term, detail: text, passed });
+    summary.push(`${integer ? '|x − n|' : c.stage === 'gaps' ? '|computed − claimed|' : 'residual'} = ${text.replace(' tolerance', '')}`);
   }
   if (c.refinement.length > 0) {
     lines.push({ term: 'refinement (coarsest first)', detail: c.refinement.map((step) => `${gridText(c.stage, step.grid)}: ${valueText(step.value, 10)}`), passed: null });

@@ -13,7 +13,7 @@ import { timeline, timelinePlot, timeText } from './plots/drive-timeline.ts';
 import { MAX_PANELS, ORBITAL_STYLE, segmentDrawing, unitCellDrawing } from './plots/lattice-drawing.ts';
 import { gapHeatMapPlot, phaseMapPlot, type PhaseLegendEntry } from './plots/phase-map.ts';
 import { bandPathPlot, bandRangesPlot, BULK_COLOUR, EDGE_STYLE, spectrumPlot } from './plots/spectrum-plot.ts';
-import { SERIES, swatch } from './plots/svg.ts';
+import { isPiMultiple, SERIES, swatch } from './plots/svg.ts';
 import { gapCurveLegend, MAX_STRIPS, sweepStepsPlot } from './plots/sweep-steps.ts';
 import { sweepData, tupleName } from './sweeps.ts';
 
@@ -58,7 +58,7 @@ export function bandFigures(record: ModelRecord): BandFigures {
     : `Bulk quasienergies along the high-symmetry path (${cornerWords}, in units of the reciprocal basis b₁, b₂). Dashed lines: open gaps. Points, not lines: a band leaving at π/T re-enters at −π/T. For plotting only; verdicts use the full grids in the certificates.`;
   const profile = invariantProfile(record.portrait, { cut: a.facts.cut ?? null, symmetryClass: record.model?.symmetryClass });
   const bands = a.kind === 'sheet' && a.bands.length > 0 ? [...a.bands].sort((x, y) => x.index - y.index).map((b) => b.range as [number, number]) : bandsFromGaps(a.gaps);
-  const bandLabel = (i: number) => (a.kind === 'sheet' && profile.C.length > 0 ? `C_${i + 1} = ${profile.C[i] === null || profile.C[i] === undefined ? '?' : String(profile.C[i]).replace('-', '−')}` : `band ${i + 1}`);
+  const bandLabel = (i: number) => (a.kind === 'sheet' && profile.C.length > 0 ? `C_${i + 1} = ${profile.C[i] === null || profile.C[i] === undefined ? '?' : String(profile.C[i]).replace('-', '−')}` : '');
   const gapValues = a.kind === 'sheet' ? profile.W : profile.nu;
   const gaps = [...a.gaps].sort((x, y) => gapOrder(x.label, y.label)).map((g) => {
     const v = gapValues.find(([label]) => Math.abs(label - g.label) < 1e-9);
@@ -143,7 +143,7 @@ export function sweepFigures(record: ModelRecord): SweepFigure[] {
     const anchor = `sweep-${sweep.name}`;
     const figureId = `f${k}-${sweep.name}`;
     const axesWords = data.axes.map((a) => `${a.symbol}${a.description ? ` (${a.description})` : ''}`).join(' and ');
-    const own = data.modelPoint ? ` The model itself is at ${data.axes.map((a, i) => `${a.symbol} = ${Number(data.modelPoint![i].toPrecision(4))}`).join(', ')} (marked).` : ' The model’s own parameter point lies outside the scanned range.';
+    const own = data.modelPoint ? ` The model itself is at ${data.axes.map((a, i) => `${a.symbol} = ${axisValueText(data.modelPoint![i], a.values)}`).join(', ')} (marked).` : ' The model’s own parameter point lies outside the scanned range.';
     const points = sweep.points.length;
     if (data.axes.length === 2 && data.tuple.length > 0) {
       const map = phaseMapPlot(data, figureId);
@@ -172,12 +172,20 @@ export function sweepFigures(record: ModelRecord): SweepFigure[] {
   });
 }
 
+/** A parameter value as the axis reads it: in units of π when the axis has π ticks. */
+function axisValueText(value: number, values: number[]): string {
+  const min = Math.min(...values), max = Math.max(...values);
+  if (isPiMultiple(min) && isPiMultiple(max) && max - min >= Math.PI / 4) return `${Number((value / Math.PI).toPrecision(3))}π`;
+  return String(Number(value.toPrecision(4)));
+}
+
 export interface LatticeFigures {
   unitCell: string;
   legend: LegendItem[];
   panels: { svg: string; index: number; label: string | null }[];
   omitted: number;
   handedness: string | null;
+  chain: boolean;
 }
 
 export function latticeFigures(source: ModelSource): LatticeFigures | null {
@@ -195,6 +203,7 @@ export function latticeFigures(source: ModelSource): LatticeFigures | null {
     legend,
     panels: shown.map((s) => ({ svg: segmentDrawing(g, s, `lattice-seg${s.index}`), index: s.index, label: s.label })),
     omitted: g.segments.length - shown.length,
+    chain: g.dimension === 1,
     handedness: g.handedness === null ? null : `a₁ × a₂ = ${Number(cross.toPrecision(4))} ${g.handedness === 'right' ? '> 0: a right-handed basis' : '< 0: a left-handed basis (C and W are still reported in the Cartesian orientation; edge counts follow the lattice vectors)'}`,
   };
 }

@@ -81,7 +81,7 @@ export function invariantLines(p: InvariantProfile): string[] {
       const high = p.edge.find((e) => e[0] === g && e[1] === f && e[2] === 'high');
       return `${gapSubscript(g)}: ${signed(low?.[3] ?? null)}/${signed(high?.[3] ?? null)}`;
     });
-    lines.push(`edge modes, ${edgeName(f, 'low').replace(/^low edge of the /, '')} (low/high edge): ${parts.join('; ')}`);
+    lines.push(`edge modes low/high, finite along ${edgeName(f, 'low').slice(-2)}: ${parts.join('; ')}`);
   }
   if (p.end.length > 0) lines.push(`end modes per end: ${p.end.map(([g, v]) => `${num(v)} at ${gapSubscript(g)}`).join(', ')}`);
   return lines;

@@ -6,7 +6,7 @@
  */
 import type { ModelRecord } from '../catalogue/records/model-record.ts';
 import type { Verdict } from '../catalogue/verify/verdict.ts';
-import { ANOMALOUS_LABEL, count, quantityName, valueText, SYMMETRY_NAME } from '../catalogue/vocabulary.ts';
+import { ANOMALOUS_LABEL, consistencyDetail, consistencyName, count, quantityName, valueText, SYMMETRY_NAME } from '../catalogue/vocabulary.ts';
 import { certificateView, type CertificateView } from './certificate-view.ts';
 import { citation, referenceViews, type Citation, type ReferenceView } from './citation.ts';
 import { recordDate } from './data.ts';
@@ -55,7 +55,10 @@ export interface ModelPageData {
   tags: { text: string; href: string }[];
   summary: string | null;
   claims: ClaimView[];
-  portrait: { name: string; value: string; settled: boolean; claimed: boolean; certificate: CertificateView; anchor: string }[];
+  /** Computed invariants the file does not claim (claimed ones are in the claims table). */
+  portrait: { name: string; value: string; settled: boolean; certificate: CertificateView; anchor: string }[];
+  /** Number of computed invariants in all. */
+  computedCount: number;
   descriptionHtml: string;
   hamiltonian: { segments: { index: number; label: string | null; windowHtml: string; formulaHtml: string; omitted: number }[]; definitionsHtml: string[] } | null;
   operators: { words: string; html: string; note: string | null }[];
@@ -150,11 +153,10 @@ export function modelPageData(record: ModelRecord): ModelPageData {
     certificate: certificateView(v.certificate),
     evidence: evidenceLinks(v, record),
   }));
-  const portrait = record.portrait.map((e) => ({
+  const portrait = record.portrait.filter((e) => !e.claimed).map((e) => ({
     name: quantityName(e.id, context).words,
     value: e.settled ? valueText(e.value) : `${valueText(e.estimate)} (unsettled)`,
     settled: e.settled,
-    claimed: e.claimed,
     certificate: certificateView(e.certificate),
     anchor: `value-${slug(e.id)}`,
   }));
@@ -184,6 +186,7 @@ export function modelPageData(record: ModelRecord): ModelPageData {
     summary: m?.summary ?? null,
     claims,
     portrait,
+    computedCount: record.portrait.length,
     descriptionHtml: m?.description ? renderMarkdown(m.description) : '',
     hamiltonian: formulas
       ? {
@@ -193,7 +196,7 @@ export function modelPageData(record: ModelRecord): ModelPageData {
       : null,
     operators,
     symmetryClass: m?.symmetryClass ?? null,
-    parameters: record.parameters.map((p) => ({ symbol: parameterSymbol(p.name), name: p.name, value: valueText(p.value, 8), expression: p.expression, description: p.description })),
+    parameters: record.parameters.map((p) => ({ symbol: parameterSymbol(p.name), name: parameterSymbol(p.name) === p.name ? '' : p.name, value: valueText(p.value, 8), expression: p.expression, description: p.description })),
     lattice: source ? latticeFigures(source) : null,
     timeline: source ? timelineFigure(source) : null,
     period: Number.isFinite(period) ? valueText(period, 6) : null,
@@ -207,8 +210,8 @@ export function modelPageData(record: ModelRecord): ModelPageData {
       open: g.open,
     })),
     grid: a ? a.grid.join(' × ') : null,
-    propagatorAccuracy: a && a.propagatorAccuracy !== null ? valueText(a.propagatorAccuracy) : null,
-    consistency: (a?.consistency ?? []).map((c) => ({ name: c.name, outcome: c.inconclusive ? 'inconclusive' : c.holds ? 'holds' : 'fails', detail: c.detail })),
+    propagatorAccuracy: a && a.propagatorAccuracy !== null ? (a.propagatorAccuracy === 0 ? 'exact (piecewise-constant drive)' : `${valueText(a.propagatorAccuracy)} π/T`) : null,
+    consistency: (a?.consistency ?? []).map((c) => ({ name: consistencyName(c.name), outcome: c.inconclusive ? 'inconclusive' : c.holds ? 'holds' : 'fails', detail: consistencyDetail(c.detail) })),
     spectra: spectrumFigures(record),
     sweeps: sweepFigures(record),
     diagnostics: record.diagnostics,

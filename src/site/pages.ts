@@ -80,7 +80,10 @@ export function publishedModels(): ModelRecord[] {
 
 const DOCUMENT_TITLES = { conventions: 'Physics conventions', 'model-format': 'Model file format' } as const;
 
-export function documentPage(name: keyof typeof DOCUMENT_TITLES, base: string): { title: string; html: string; outline: { id: string; text: string }[] } {
+export function documentPage(name: keyof typeof DOCUMENT_TITLES, base: string): { title: string; heading: string; body: string; outline: { id: string; text: string }[] } {
   const html = renderDocument(documentMarkdown(name), base);
-  return { title: DOCUMENT_TITLES[name], html, outline: documentOutline(html) };
+  // The title (the document's h1) comes before its table of contents.
+  const end = html.indexOf('</h1>');
+  const [heading, body] = end >= 0 ? [html.slice(0, end + 5), html.slice(end + 5)] : ['', html];
+  return { title: DOCUMENT_TITLES[name], heading, body, outline: documentOutline(html) };
 }

@@ -132,7 +132,6 @@ export function timelinePlot(t: Timeline): string {
     parts.push(`<rect x="${fmt(x0)}" y="${barTop}" width="${fmt(Math.max(0.5, x1 - x0))}" height="${barHeight}" class="segment-block segment-${i % 2 === 0 ? 'even' : 'odd'}"/>`);
     if (x1 - x0 >= 14) parts.push(`<text x="${fmt((x0 + x1) / 2)}" y="${barTop + barHeight / 2}" dy="0.35em" text-anchor="middle" class="plot-label">${s.index}</text>`);
   });
-  parts.push(`<text x="4" y="${barTop + barHeight / 2}" dy="0.35em" class="plot-axis-label">segment</text>`);
   if (curvePanel) {
     const top = barTop + barHeight + 12, mid = top + curvePanel / 2, amp = curvePanel / 2 - 6;
     parts.push(`<rect x="${left}" y="${top}" width="${width - left - right}" height="${curvePanel}" class="plot-box"/><line x1="${left}" x2="${width - right}" y1="${mid}" y2="${mid}" class="plot-grid-line"/>`);

@@ -24,7 +24,8 @@ export const ORBITAL_STYLE: { colour: string; marker: keyof typeof MARKERS }[] =
 export const MAX_PANELS = 12;
 
 interface View {
-  size: number;
+  width: number;
+  height: number;
   toScreen(p: Point): Point;
   scale: number;
 }
@@ -61,16 +62,17 @@ function displayOffsets(g: LatticeGeometry): Point[] {
   return offsets;
 }
 
-function makeView(g: LatticeGeometry, cells: number[][], size: number, pad: number): View {
+function makeView(g: LatticeGeometry, cells: number[][], width: number, height: number, pad: number): View {
   const points = cells.flatMap((n) => g.orbitals.map((o) => add(cellOrigin(g, n), o.position)));
   const corners = g.dimension === 2 ? [[0, 0], g.vectors[0], g.vectors[1], add(g.vectors[0], g.vectors[1])] : [[0, 0], g.vectors[0]];
   points.push(...(corners as Point[]));
   const xs = points.map((p) => p[0]), ys = points.map((p) => p[1]);
   const [x0, x1, y0, y1] = [Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)];
-  const span = Math.max(x1 - x0, y1 - y0, 1e-9);
-  const scale = (size - 2 * pad) / span;
+  const scale = Math.min((width - 2 * pad) / Math.max(x1 - x0, 1e-9), (height - 2 * pad) / Math.max(y1 - y0, 1e-9));
   const cx = (x0 + x1) / 2, cy = (y0 + y1) / 2;
-  return { size, scale, toScreen: ([x, y]) => [size / 2 + (x - cx) * scale, size / 2 - (y - cy) * scale] };
+  // Chains sit low in their panel: their bonds arc upwards.
+  const middle = g.dimension === 1 ? height * 0.68 : height / 2;
+  return { width, height, scale, toScreen: ([x, y]) => [width / 2 + (x - cx) * scale, middle - (y - cy) * scale] };
 }
 
 function orbitalMarks(g: LatticeGeometry, view: View, cells: number[][], offsets: Point[], central: boolean): string {
@@ -80,8 +82,8 @@ function orbitalMarks(g: LatticeGeometry, view: View, cells: number[][], offsets
     const all = cells.map((n) => add(view.toScreen(add(cellOrigin(g, n), o.position)), offsets[i]));
     const centre = add(view.toScreen(o.position), offsets[i]);
     const others = all.filter((p) => Math.hypot(p[0] - centre[0], p[1] - centre[1]) > 0.5);
-    parts.push(`<path d="${markerPath(others, style.marker, 3.2)}" fill="${style.colour}" fill-opacity="0.35"/>`);
-    parts.push(`<path d="${markerPath([centre], style.marker, central ? 5 : 4.2)}" fill="${style.colour}" stroke="#fff" stroke-width="0.8"/>`);
+    parts.push(`<path d="${markerPath(others, style.marker, central ? 3.4 : 4)}" fill="${style.colour}" fill-opacity="0.4"/>`);
+    parts.push(`<path d="${markerPath([centre], style.marker, central ? 5.5 : 5.5)}" fill="${style.colour}" stroke="#fff" stroke-width="0.8"/>`);
   });
   return parts.join('');
 }
@@ -101,9 +103,9 @@ function arrowDefs(id: string, colour: string): string {
 
 /** Overview: unit cell, orbitals labelled, lattice vectors a₁, a₂ and the sense of rotation from a₁ to a₂. */
 export function unitCellDrawing(g: LatticeGeometry, figureId: string): string {
-  const size = 260;
+  const [width, height] = g.dimension === 1 ? [420, 96] : [260, 260];
   const cells = patchCells(g);
-  const view = makeView(g, cells, size, 34);
+  const view = makeView(g, cells, width, height, 34);
   const offsets = displayOffsets(g);
   const arrowId = `${figureId}-arrow`;
   const origin = view.toScreen([0, 0]);
@@ -121,17 +123,23 @@ export function unitCellDrawing(g: LatticeGeometry, figureId: string): string {
     let sweep = t2 - t1;
     while (sweep > Math.PI) sweep -= 2 * Math.PI;
     while (sweep < -Math.PI) sweep += 2 * Math.PI;
-    const r = 22;
-    const start: Point = [origin[0] + r * Math.cos(t1 + sweep * 0.15), origin[1] - r * Math.sin(t1 + sweep * 0.15)];
-    const end: Point = [origin[0] + r * Math.cos(t1 + sweep * 0.85), origin[1] - r * Math.sin(t1 + sweep * 0.85)];
+    const shortest = Math.min(...g.vectors.map((v) => Math.hypot(v[0], v[1]))) * view.scale;
+    const r = Math.max(18, Math.min(44, shortest * 0.32));
+    const start: Point = [origin[0] + r * Math.cos(t1 + sweep * 0.12), origin[1] - r * Math.sin(t1 + sweep * 0.12)];
+    const end: Point = [origin[0] + r * Math.cos(t1 + sweep * 0.88), origin[1] - r * Math.sin(t1 + sweep * 0.88)];
     parts.push(`<path d="M${fmt(start[0])} ${fmt(start[1])}A${r} ${r} 0 0 ${sweep > 0 ? 0 : 1} ${fmt(end[0])} ${fmt(end[1])}" class="handedness-arc" marker-end="url(#${arrowId})"/>`);
   }
   parts.push(orbitalMarks(g, view, cells, offsets, true));
+  // Labels point away from the middle of the cell, clear of the lattice vectors drawn from its corner.
+  const middle = view.toScreen(g.vectors.reduce<Point>((acc, v) => add(acc, times(v, 0.5)), [0, 0]));
   g.orbitals.forEach((o, i) => {
     const p = add(view.toScreen(o.position), offsets[i]);
-    parts.push(`<text x="${fmt(p[0] + 7)}" y="${fmt(p[1] - 8)}" class="orbital-label halo">${escapeHtml(o.name)}</text>`);
+    let d: Point = [p[0] - middle[0], p[1] - middle[1]];
+    const length = Math.hypot(d[0], d[1]);
+    d = length < 1 ? [0.7, -0.7] : [d[0] / length, d[1] / length];
+    parts.push(`<text x="${fmt(p[0] + d[0] * 16)}" y="${fmt(p[1] + d[1] * 16)}" dy="0.35em" text-anchor="middle" class="orbital-label halo">${escapeHtml(o.name)}</text>`);
   });
-  return svgDocument(size, size, `Unit cell with orbitals ${g.orbitals.map((o) => o.name).join(', ')} and lattice vectors`, parts.join(''), 'plot-lattice');
+  return svgDocument(width, height, `Unit cell with orbitals ${g.orbitals.map((o) => o.name).join(', ')} and lattice vectors`, parts.join(''), 'plot-lattice');
 }
 
 function bondPath(g: LatticeGeometry, view: View, offsets: Point[], from: number, to: number, cell: number[], offset: number[]): { d: string; mid: Point; angle: number } {
@@ -157,9 +165,9 @@ function inPatch(cells: number[][], n: number[]): boolean {
 
 /** One segment: bonds switched on (central cell heavy), on-site rings, kicks and light noted. */
 export function segmentDrawing(g: LatticeGeometry, segment: SegmentDrawing, figureId: string): string {
-  const size = 200;
+  const [width, height] = g.dimension === 1 ? [300, 96] : [200, 200];
   const cells = patchCells(g);
-  const view = makeView(g, cells, size, 22);
+  const view = makeView(g, cells, width, height, 22);
   const offsets = displayOffsets(g);
   const arrowId = `${figureId}-arrow`;
   const light: string[] = [], heavy: string[] = [], lightPairs: string[] = [], heavyPairs: string[] = [], arrows: string[] = [];
@@ -191,7 +199,7 @@ export function segmentDrawing(g: LatticeGeometry, segment: SegmentDrawing, figu
     parts.push(`<circle cx="${fmt(p[0])}" cy="${fmt(p[1])}" r="9" class="onsite-ring"/><text x="${fmt(p[0] + 11)}" y="${fmt(p[1] + 12)}" class="onsite-sign halo">${sign}</text>`);
   }
   const notes = [segment.kick ? 'kick' : '', segment.light ? 'light field' : ''].filter(Boolean).join(', ');
-  if (notes) parts.push(`<text x="6" y="${size - 8}" class="plot-label">${escapeHtml(notes)}</text>`);
-  if (segment.bonds.length === 0 && segment.onsite.length === 0) parts.push(`<text x="${size / 2}" y="${size / 2}" text-anchor="middle" class="plot-label halo">no terms</text>`);
-  return svgDocument(size, size, `Segment ${segment.index}${segment.label ? ` (${segment.label})` : ''}: ${segment.bonds.length} bond(s), ${segment.onsite.length} on-site term(s)`, parts.join(''), 'plot-lattice');
+  if (notes) parts.push(`<text x="6" y="${height - 8}" class="plot-label">${escapeHtml(notes)}</text>`);
+  if (segment.bonds.length === 0 && segment.onsite.length === 0) parts.push(`<text x="${width / 2}" y="${height / 2}" text-anchor="middle" class="plot-label halo">no terms</text>`);
+  return svgDocument(width, height, `Segment ${segment.index}${segment.label ? ` (${segment.label})` : ''}: ${segment.bonds.length} bond(s), ${segment.onsite.length} on-site term(s)`, parts.join(''), 'plot-lattice');
 }

@@ -117,7 +117,9 @@ export function labelCells(keys: (string | null)[], nx: number, ny: number, mini
 function modelMarker(frame: Frame, point: number[] | null): string {
   if (!point) return '';
   const x = frame.x(point[0]), y = frame.y(point[1]);
-  return `<g class="model-point"><circle cx="${fmt(x)}" cy="${fmt(y)}" r="6.5" fill="#fff" stroke="#000" stroke-width="1.6"/><circle cx="${fmt(x)}" cy="${fmt(y)}" r="2.2" fill="#000"/><text x="${fmt(x + 10)}" y="${fmt(y - 8)}" class="plot-label halo">this model</text></g>`;
+  const right = x > frame.width - frame.right - 90;
+  const below = y < frame.top + 20;
+  return `<g class="model-point"><circle cx="${fmt(x)}" cy="${fmt(y)}" r="6.5" fill="#fff" stroke="#000" stroke-width="1.6"/><circle cx="${fmt(x)}" cy="${fmt(y)}" r="2.2" fill="#000"/><text x="${fmt(right ? x - 10 : x + 10)}" y="${fmt(below ? y + 18 : y - 8)}" text-anchor="${right ? 'end' : 'start'}" class="plot-label halo">this model</text></g>`;
 }
 
 export function phaseMapPlot(data: SweepData, figureId: string): PhaseMap {

@@ -143,32 +143,32 @@ export function isPiMultiple(value: number): boolean {
   return Math.abs(x - Math.round(x)) < 1e-6;
 }
 
-/** Ticks at multiples of π/q between min and max (q chosen for 3–7 ticks). */
+/** Ticks at multiples of π/q between min and max, q chosen for 4–7 ticks. */
 export function piTicks(min: number, max: number): Tick[] {
-  const span = (max - min) / Math.PI;
   for (const q of [1, 2, 4, 6, 8, 12]) {
     const step = Math.PI / q;
     const first = Math.ceil(min / step - 1e-9), last = Math.floor(max / step + 1e-9);
     const n = last - first + 1;
-    if (n >= 3 || q === 12) {
-      const ticks: Tick[] = [];
+    if (n >= 4 || q === 12) {
       const stride = Math.max(1, Math.ceil(n / 7));
+      const ticks: Tick[] = [];
       for (let k = first; k <= last; k += stride) ticks.push({ value: k * step, label: piFraction(k, q) });
-      if (n >= 3 || span > 0) return ticks;
+      return ticks;
     }
   }
   return [];
 }
 
-/** "Nice" decimal ticks (1, 2, 5 × 10ᵏ) between min and max. */
-export function niceTicks(min: number, max: number, target = 5): Tick[] {
+/** "Nice" decimal ticks (1, 2, 2.5, 5 × 10ᵏ): the finest spacing that gives at most `most` ticks. */
+export function niceTicks(min: number, max: number, most = 7): Tick[] {
   if (!(max > min)) return [{ value: min, label: minus(String(Number(min.toPrecision(3)))) }];
-  const raw = (max - min) / target;
-  const power = 10 ** Math.floor(Math.log10(raw));
-  const step = [1, 2, 2.5, 5, 10].map((m) => m * power).find((s) => s >= raw) ?? raw;
+  const k0 = Math.floor(Math.log10(max - min)) - 1;
+  const steps = [0, 1, 2].flatMap((d) => [1, 2, 2.5, 5].map((m) => m * 10 ** (k0 + d)));
+  const count = (step: number) => Math.floor(max / step + 1e-9) - Math.ceil(min / step - 1e-9) + 1;
+  const step = steps.find((s) => count(s) <= most) ?? steps[steps.length - 1];
   const ticks: Tick[] = [];
-  for (let v = Math.ceil(min / step - 1e-9) * step; v <= max + step * 1e-9; v += step) {
-    const value = Math.abs(v) < step * 1e-9 ? 0 : v;
+  for (let k = Math.ceil(min / step - 1e-9); k * step <= max + step * 1e-9; k++) {
+    const value = k === 0 ? 0 : k * step;
     ticks.push({ value, label: minus(String(Number(value.toPrecision(6)))) });
   }
   return ticks;
@@ -178,7 +178,7 @@ export function niceTicks(min: number, max: number, target = 5): Tick[] {
 export function parameterTicks(values: number[]): Tick[] {
   const min = Math.min(...values), max = Math.max(...values);
   if (isPiMultiple(min) && isPiMultiple(max) && max - min >= Math.PI / 4) return piTicks(min, max);
-  return niceTicks(min, max, 5);
+  return niceTicks(min, max);
 }
 
 /** The quasienergy axis: ε from −π/T to π/T with π ticks. */

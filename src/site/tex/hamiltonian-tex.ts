@@ -106,7 +106,8 @@ function amplitudeTex(amplitude: Amplitude): { negative: boolean; tex: string; r
 /** One term: sign, coefficient and operator, dropping a coefficient of 1. */
 function term(negative: boolean, factors: string[], operator: string): string {
   const coefficient = factors.filter((f) => f !== '' && f !== '1').join('\\,');
-  return `${negative ? '-' : ''}${coefficient ? `${coefficient}\\, ` : ''}${operator}`;
+  const gap = operator.startsWith('\\left') ? '' : '\\, ';
+  return `${negative ? '-' : ''}${coefficient ? `${coefficient}${gap}` : ''}${operator}`;
 }
 
 function termsTex(segment: Segment, dimension: 1 | 2, peierls: boolean): string[] {
@@ -128,6 +129,11 @@ function termsTex(segment: Segment, dimension: 1 | 2, peierls: boolean): string[
     }
   }
   return lines;
+}
+
+/** Terms joined with their signs: a, − b, + c. */
+function joinTerms(lines: string[], separator: string): string {
+  return lines.map((l, k) => (k === 0 ? l : l.startsWith('-') ? `- ${l.slice(1)}` : `+ ${l}`)).join(separator);
 }
 
 /** A time as a multiple of T when it is a simple fraction (T/4, 2T/5), else a number. */
@@ -185,7 +191,8 @@ export function hamiltonianFormulas(doc: ModelDocument, value: (q: Quantity) => 
     let body: string;
     if (shown.length === 0) body = `${name} = 0`;
     else if (shown.length === 1) body = `${name} = ${shown[0].startsWith('-') ? `-${sum} ${shown[0].slice(1)}` : `${sum} ${shown[0]}`}`;
-    else body = `\\begin{aligned} ${name} = ${sum} \\Big[\\, & ${shown.map((l, k) => (k === 0 ? l : l.startsWith('-') ? `- ${l.slice(1)}` : `+ ${l}`)).join(' \\\\ & ')} \\,\\Big] \\end{aligned}`;
+    else if (shown.length <= 3) body = `${name} = ${sum} \\Big[ ${joinTerms(shown, ' ')} \\Big]`;
+    else body = `\\begin{aligned} ${name} = ${sum} \\Big[\\, & ${joinTerms(shown, ' \\\\ & ')} \\,\\Big] \\end{aligned}`;
     if (peierls) body += ` ,\\qquad ${vectorPotentialTex(segment.vectorPotential!, dimension)}`;
     if (peierls) definitions.add(`\\mathbf d_{ab} = \\sum_i n_i\\mathbf a_i + \\mathbf r_b - \\mathbf r_a \\text{ (hop vector from } a \\text{ to } b)`);
     const window = kick ? `U_{${i + 1}} = e^{-iK_{${i + 1}}} \\text{ at } t = ${timeTex(start, period)}` : `${timeTex(start, period)} \\le t < ${timeTex(start + duration, period)}`;
