@@ -15,11 +15,11 @@ import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkRehype from 'remark-rehype';
 import rehypeSanitize from 'rehype-sanitize';
-import rehypeKatex from 'rehype-katex';
 import rehypeStringify from 'rehype-stringify';
 import type { Element, ElementContent, Root as HastRoot } from 'hast';
 import { KATEX_MARKDOWN_OPTIONS, sanitizeSchema } from './markdown.ts';
 import { rehypeWrapTables } from './rehype-wrap-tables.ts';
+import { rehypeKatexRaw } from './rehype-katex-raw.ts';
 
 interface MdNode {
   type: string;
@@ -180,10 +180,10 @@ export function renderDocument(markdown: string, base = ''): string {
     .use(remarkUnicodeNotation)
     .use(remarkRehype)
     .use(rehypeSanitize, sanitizeSchema)
-    .use(rehypeKatex, KATEX_MARKDOWN_OPTIONS)
+    .use(rehypeKatexRaw, KATEX_MARKDOWN_OPTIONS)
     .use(rehypeSiteLinksAndIds, { base })
     .use(rehypeWrapTables)
-    .use(rehypeStringify);
+    .use(rehypeStringify, { allowDangerousHtml: true });
   try {
     return String(processor.processSync(markdown));
   } catch (error) {

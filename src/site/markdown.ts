@@ -5,7 +5,7 @@
  * remark-math for $…$ and $$…$$)
  * → hast (remark-rehype, raw HTML in the source is dropped, never passed through)
  * → sanitised with rehype-sanitize (GitHub-style allow list, plus the two math
- * classes) → math typeset by KaTeX on the server (rehype-katex) → HTML.
+ * classes) → math typeset by KaTeX on the server (rehype-katex-raw.ts) → HTML.
  * Sanitising happens before KaTeX, so only KaTeX's own output is trusted.
  */
 import { remark } from 'remark';
@@ -13,10 +13,10 @@ import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkRehype from 'remark-rehype';
 import rehypeSanitize, { defaultSchema, type Options as SanitizeSchema } from 'rehype-sanitize';
-import rehypeKatex from 'rehype-katex';
 import rehypeStringify from 'rehype-stringify';
 import { escapeHtml } from './render/escape.ts';
 import { rehypeWrapTables } from './rehype-wrap-tables.ts';
+import { rehypeKatexRaw } from './rehype-katex-raw.ts';
 
 export const sanitizeSchema: SanitizeSchema = {
   ...defaultSchema,
@@ -34,9 +34,9 @@ const processor = remark()
   .use(remarkMath)
   .use(remarkRehype)
   .use(rehypeSanitize, sanitizeSchema)
-  .use(rehypeKatex, KATEX_MARKDOWN_OPTIONS)
+  .use(rehypeKatexRaw, KATEX_MARKDOWN_OPTIONS)
   .use(rehypeWrapTables)
-  .use(rehypeStringify);
+  .use(rehypeStringify, { allowDangerousHtml: true });
 
 /** Markdown (untrusted) → sanitised HTML with server-rendered math. Never throws for bad input. */
 export function renderMarkdown(markdown: string): string {

@@ -96,7 +96,7 @@ describe.skipIf(!hasBrowser)('catalogue site in a browser', () => {
     await page.fill('input[name="q"]', 'C = 0 in every band');
     await expect.poll(() => rows().count()).toBe(0);
     expect(await page.locator('#inventory-empty').isVisible()).toBe(true);
-    await page.fill('input[name="q"]', 'Lantern chain');
+    await page.fill('input[name="q"]', 'Quispe chain');
     await expect.poll(visibleIds).toEqual(['site-chain']);
   });
 

@@ -6,23 +6,11 @@
 import MiniSearch from 'minisearch';
 import type { ModelRecord } from '../../catalogue/records/model-record.ts';
 import { ANOMALOUS_LABEL, STATUS_LABEL } from '../../catalogue/vocabulary.ts';
-import { invariantLines, invariantSearchText } from '../invariants.ts';
+import { invariantSearchText } from '../invariants.ts';
 import { inventoryRow } from '../inventory.ts';
 import type { InventoryRow } from '../render/inventory-row.ts';
 import { parameterSymbol } from '../symbols.ts';
 import { INDEX_OPTIONS, type SearchDocument } from './search-options.ts';
-
-/** Description as plain words: math, links and Markdown marks removed, at most 600 characters. */
-export function plainDescription(markdown: string | null): string {
-  if (!markdown) return '';
-  return markdown
-    .replace(/\$\$[\s\S]*?\$\$|\$[^$\n]*\$/g, ' ')
-    .replace(/\[([^\]]*)\]\([^)]*\)/g, '$1')
-    .replace(/[#*_`>|~]/g, ' ')
-    .replace(/\s+/g, ' ')
-    .trim()
-    .slice(0, 600);
-}
 
 export function searchDocument(record: ModelRecord, row: InventoryRow): SearchDocument {
   const m = record.model;
@@ -32,11 +20,11 @@ export function searchDocument(record: ModelRecord, row: InventoryRow): SearchDo
     summary: row.summary,
     tags: row.tags.join(' '),
     facets: [row.cls ? `class ${row.cls}` : '', row.lattice ?? '', ...row.drives, row.dim === 1 ? 'chain 1D' : row.dim === 2 ? 'sheet 2D' : '', STATUS_LABEL[row.status], ANOMALOUS_LABEL[row.anomalous]].join(' '),
-    invariants: `${invariantLines(row.inv).join(' ')} ${invariantSearchText(row.inv)}`,
+    invariants: invariantSearchText(row.inv),
     parameters: record.parameters.map((p) => `${p.name} ${parameterSymbol(p.name)} ${p.description ?? ''}`).join(' '),
-    maintainers: (m?.maintainers ?? []).join(' '),
+    // Names only: an affiliation shared by a whole inventory would be a word every model has.
+    maintainers: (m?.maintainers ?? []).map((name) => name.replace(/\s*\([^)]*\)/g, '')).join(' '),
     references: (m?.references ?? []).map((r) => [r.citation, r.doi, r.arxiv, r.note].filter(Boolean).join(' ')).join(' '),
-    description: plainDescription(m?.description ?? null),
   };
 }
 

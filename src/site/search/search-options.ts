@@ -4,7 +4,7 @@
  */
 import type { Options, SearchOptions } from 'minisearch';
 
-export const SEARCH_FIELDS = ['title', 'summary', 'tags', 'facets', 'invariants', 'parameters', 'maintainers', 'references', 'description'] as const;
+export const SEARCH_FIELDS = ['title', 'summary', 'tags', 'facets', 'invariants', 'parameters', 'maintainers', 'references'] as const;
 
 export interface SearchDocument {
   id: string;
@@ -17,21 +17,29 @@ export interface SearchDocument {
   parameters: string;
   maintainers: string;
   references: string;
-  description: string;
 }
 
-/** Lower case, accents folded ("Ostvik" finds "Östvik"), π kept as a letter. */
+/** Words too common to search by; leaving them out keeps the index small. */
+const STOP_WORDS = new Set(['a', 'an', 'and', 'as', 'at', 'by', 'for', 'from', 'in', 'is', 'it', 'its', 'of', 'on', 'or', 'the', 'then', 'to', 'with', 'when', 'one', 'per']);
+
+/** Lower case, accents folded ("Ostvik" finds "Östvik"), π kept as a letter, common words dropped. */
 export function processTerm(term: string): string | null {
   const t = term.normalize('NFKD').replace(/[\u0300-\u036f]/g, '').toLowerCase();
-  return t.length > 0 ? t : null;
+  return t.length > 0 && !STOP_WORDS.has(t) ? t : null;
+}
+
+const DOI = /^10\.\d{4,9}\/\S+$/i;
+
+/** Words, and invariant tokens such as "wπ=1" or "ν0=1", stay whole; so do DOIs. */
+export function tokenize(text: string): string[] {
+  return text.split(/\s+/u).flatMap((chunk) => (DOI.test(chunk) ? [chunk.replace(/[.,;)]+$/, '')] : chunk.split(/[,;:()[\]{}"'!?.·—–/]+/u))).filter(Boolean);
 }
 
 export const INDEX_OPTIONS: Options<SearchDocument> = {
   fields: [...SEARCH_FIELDS],
   storeFields: [],
   processTerm,
-  // Words, and invariant tokens such as "wπ=1" or "ν0=1", stay whole.
-  tokenize: (text) => text.split(/[\s,;:()[\]{}"'!?.·—–/]+/u).filter(Boolean),
+  tokenize,
 };
 
 export const QUERY_OPTIONS: SearchOptions = {
