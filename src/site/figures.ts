@@ -15,7 +15,7 @@ import { gapHeatMapPlot, phaseMapPlot, type PhaseLegendEntry } from './plots/pha
 import { bandPathPlot, bandRangesPlot, BULK_COLOUR, EDGE_STYLE, spectrumPlot } from './plots/spectrum-plot.ts';
 import { isPiMultiple, SERIES, swatch } from './plots/svg.ts';
 import { gapCurveLegend, MAX_STRIPS, sweepStepsPlot } from './plots/sweep-steps.ts';
-import { sweepData, tupleName } from './sweeps.ts';
+import { sweepData, thinned, tupleName, type SweepData } from './sweeps.ts';
 
 export interface LegendItem {
   /** Inline SVG swatch (trusted, built here). */
@@ -137,23 +137,45 @@ export interface SweepFigure {
   errors: { where: string; error: string }[];
 }
 
+/** Bytes of SVG all phase diagrams of one page may take; finer scans are drawn on a coarser grid. */
+export const SWEEP_FIGURE_BUDGET = 160_000;
+
+/** The figures of a sweep, drawn on the finest grid (every k-th point) that fits the budget. */
+function fitted<T>(full: SweepData, budget: number, draw: (data: SweepData) => T, size: (figures: T) => number): { figures: T; step: number } {
+  let step = 1;
+  let figures = draw(full);
+  while (size(figures) > budget && full.axes.every((a) => a.values.length / (step + 1) >= 8)) {
+    step++;
+    figures = draw(thinned(full, step));
+  }
+  return { figures, step };
+}
+
 export function sweepFigures(record: ModelRecord): SweepFigure[] {
+  const budget = SWEEP_FIGURE_BUDGET / Math.max(1, record.sweeps.length);
   return record.sweeps.map((sweep, k) => {
-    const data = sweepData(sweep, record);
+    const full = sweepData(sweep, record);
+    const data = full;
     const anchor = `sweep-${sweep.name}`;
     const figureId = `f${k}-${sweep.name}`;
     const axesWords = data.axes.map((a) => `${a.symbol}${a.description ? ` (${a.description})` : ''}`).join(' and ');
     const own = data.modelPoint ? ` The model itself is at ${data.axes.map((a, i) => `${a.symbol} = ${axisValueText(data.modelPoint![i], a.values)}`).join(', ')} (marked).` : ' The model’s own parameter point lies outside the scanned range.';
     const points = sweep.points.length;
+    const thinnedNote = (step: number) => (step > 1 ? ` Drawn at every ${step}th point of each axis to keep the page light; the downloadable record holds every point.` : '');
     if (data.axes.length === 2 && data.tuple.length > 0) {
-      const map = phaseMapPlot(data, figureId);
+      const { figures, step } = fitted(
+        full,
+        budget,
+        (d) => ({ map: phaseMapPlot(d, figureId), heat: d.gaps.map((g, i) => ({ title: g.name.words, svg: gapHeatMapPlot(d, i, `${figureId}-gap${i}`) })) }),
+        (f) => f.map.svg.length + f.heat.reduce((a, h) => a + h.svg.length, 0),
+      );
       return {
         anchor,
         title: data.title,
-        main: map.svg,
-        mainLegend: map.legend.map((e: PhaseLegendEntry, i) => ({ swatch: swatch(e.fill, e.hatch, `${figureId}-legend-${i}`), text: e.text })),
-        heatMaps: data.gaps.map((_, i) => ({ title: data.gaps[i].name.words, svg: gapHeatMapPlot(data, i, `${figureId}-gap${i}`) })),
-        caption: `Phases over ${axesWords}, ${data.axes[0].values.length} × ${data.axes[1].values.length} = ${points} points, each region labelled by ${tupleName(data.tuple)}. Hatched grey: a gap closed or the value could not be settled at that point (phase boundaries).${own} Beneath: the smallest gap at each point on a colour scale in units of π/T (dark = nearly closed).`,
+        main: figures.map.svg,
+        mainLegend: figures.map.legend.map((e: PhaseLegendEntry, i) => ({ swatch: swatch(e.fill, e.hatch, `${figureId}-legend-${i}`), text: e.text })),
+        heatMaps: figures.heat,
+        caption: `Phases over ${axesWords}, ${data.axes[0].values.length} × ${data.axes[1].values.length} = ${points} points, each region labelled by ${tupleName(data.tuple)}. Hatched grey: a gap closed or the value could not be settled at that point (phase boundaries).${own} Beneath: the smallest gap at each point on a colour scale in units of π/T (dark = nearly closed).${thinnedNote(step)}`,
         errors: data.errors,
       };
     }
@@ -163,7 +185,7 @@ export function sweepFigures(record: ModelRecord): SweepFigure[] {
     return {
       anchor,
       title: data.title,
-      main: data.axes.length === 1 ? sweepStepsPlot(data, figureId) : '',
+      main: data.axes.length === 1 ? fitted(full, budget, (d) => sweepStepsPlot(d, figureId), (svg) => svg.length).figures : '',
       mainLegend: legend,
       heatMaps: [],
       caption: `${strips.map((s) => s.name.words).join('; ')} against ${axesWords}, ${points} points; each invariant is a step plot in its own strip (hatched: unsettled), the smallest gaps beneath.${own}${left}`,

@@ -95,3 +95,24 @@ export function tupleName(tuple: Series[]): string {
   const symbols = tuple.map((s) => s.name.symbol ?? s.name.words);
   return symbols.length === 1 ? symbols[0] : `(${symbols.join(', ')})`;
 }
+
+/**
+ * The sweep on a coarser grid: every k-th value along each axis (the last
+ * always kept), for drawing a very fine scan within a page's budget.
+ */
+export function thinned(data: SweepData, k: number): SweepData {
+  if (k <= 1) return data;
+  const keep = (n: number) => Array.from({ length: n }, (_, i) => i).filter((i) => i % k === 0 || i === n - 1);
+  const [ax, ay] = data.axes;
+  const xs = keep(ax.values.length);
+  const ys = ay ? keep(ay.values.length) : [0];
+  const indices = ys.flatMap((j) => xs.map((i) => j * ax.values.length + i));
+  const pick = (series: Series[]) => series.map((s) => ({ ...s, values: indices.map((i) => s.values[i]) }));
+  return {
+    ...data,
+    axes: data.axes.map((a, d) => ({ ...a, values: (d === 0 ? xs : ys).map((i) => a.values[i]) })),
+    tuple: pick(data.tuple),
+    others: pick(data.others),
+    gaps: pick(data.gaps),
+  };
+}

@@ -43,9 +43,24 @@ function gapLines(frame: ReturnType<typeof makeFrame>, labels: number[]): string
     .join('');
 }
 
-/** Points as zero-length round-capped strokes: one short path for thousands of states. */
+/**
+ * Points as zero-length round-capped strokes: one short path for thousands of
+ * states. Points that fall on the same spot of the drawing (to 0.5 units, well
+ * below a dot) are drawn once, so a ribbon thousands of cells wide costs no
+ * more than the figure can show.
+ */
 function dotPath(points: [number, number][]): string {
-  return points.map(([x, y]) => `M${fmt(x)} ${fmt(y)}h0`).join('');
+  return onePerSpot(points).map(([x, y]) => `M${fmt(x)} ${fmt(y)}h0`).join('');
+}
+
+export function onePerSpot(points: [number, number][]): [number, number][] {
+  const seen = new Set<string>();
+  return points.filter(([x, y]) => {
+    const key = `${Math.round(x * 2)},${Math.round(y * 2)}`;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
 }
 
 export function spectrumPlot(input: SpectrumInput): string {
@@ -71,7 +86,7 @@ export function spectrumPlot(input: SpectrumInput): string {
     `<path d="${dotPath(layers.bulk)}" stroke="${input.classes ? BULK_COLOUR : '#3d4651'}" stroke-width="${bulkWidth}" stroke-linecap="round" fill="none"/>` +
     (['both', 'low', 'high'] as const)
       .filter((k) => layers[k].length > 0)
-      .map((k) => `<path d="${markerPath(layers[k], EDGE_STYLE[k].marker, 3)}" fill="${EDGE_STYLE[k].colour}" stroke="#fff" stroke-width="0.4" class="state-${k}"/>`)
+      .map((k) => `<path d="${markerPath(onePerSpot(layers[k]), EDGE_STYLE[k].marker, 3)}" fill="${EDGE_STYLE[k].colour}" stroke="#fff" stroke-width="0.4" class="state-${k}"/>`)
       .join('');
   return svgDocument(frame.width, frame.height, input.title, body);
 }

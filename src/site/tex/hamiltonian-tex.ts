@@ -18,6 +18,8 @@ import { isCompound, numberTex, quantityTex } from './expression-tex.ts';
 
 /** Terms typeset per segment before the rest is summarised (keeps pages small). */
 export const MAX_TERMS_SHOWN = 24;
+/** Terms typeset on one page in all; later segments are summarised by their term count. */
+export const MAX_TERMS_PER_PAGE = 120;
 
 export interface SegmentFormula {
   index: number;
@@ -177,13 +179,15 @@ export function hamiltonianFormulas(doc: ModelDocument, value: (q: Quantity) => 
   const period = value(doc.drive.period);
   const definitions = new Set<string>();
   let start = 0;
+  let budget = MAX_TERMS_PER_PAGE;
   const sum = dimension === 1 ? '\\sum_{j}' : '\\sum_{\\mathbf R}';
   const segments = doc.drive.segments.map((segment, i): SegmentFormula => {
     const duration = value(segment.duration);
     const kick = duration === 0;
     const peierls = (segment.vectorPotential ?? []).length > 0;
     const lines = termsTex(segment, dimension, peierls);
-    const shown = lines.slice(0, MAX_TERMS_SHOWN);
+    const shown = lines.slice(0, Math.max(0, Math.min(MAX_TERMS_SHOWN, budget)));
+    budget -= shown.length;
     const omitted = lines.length - shown.length;
     if (omitted > 0) shown.push(`\\ldots\\;\\text{(${omitted} more terms)}`);
     if ([...(segment.onsite ?? []), ...(segment.hoppings ?? []), ...(segment.pairings ?? [])].some((t) => t.modulation?.kind === 'harmonic') || peierls) definitions.add('\\omega = 2\\pi/T');

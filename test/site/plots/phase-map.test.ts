@@ -111,3 +111,19 @@ describe('axis ticks', () => {
     expect(scaleMaximum(0.37)).toBe(0.4);
   });
 });
+
+describe('page budget', () => {
+  it('draws a very fine scan on a coarser grid so that a page stays light, and says so', async () => {
+    const { sweepFigures, SWEEP_FIGURE_BUDGET } = await import('../../../src/site/figures.ts');
+    // A 201 × 201 scan of four phases with noisy gaps: too much to draw point by point.
+    const m = 201;
+    const axis = Array.from({ length: m }, (_, i) => (Math.PI * i) / (m - 1));
+    const points: SweepRecord['points'] = [];
+    for (const t2 of axis) for (const t1 of axis) points.push({ parameters: { theta1: t1, theta2: t2 }, values: { 'gap-0/invariant': t1 + t2 < Math.PI ? 0 : 1, 'gap-1/invariant': t2 > t1 ? -1 : 0, 'gap-0/minimal-gap': Math.abs(Math.sin(3 * t1) * Math.cos(5 * t2)) }, error: null });
+    const sweep: SweepRecord = { name: 'fine', title: 'Fine scan', axes: [{ parameter: 'theta1', values: axis }, { parameter: 'theta2', values: axis }], quantities: ['invariant', 'minimalGap'], points };
+    const [figure] = sweepFigures({ ...record, sweeps: [sweep] } as never);
+    const bytes = figure.main.length + figure.heatMaps.reduce((a, h) => a + h.svg.length, 0);
+    expect(bytes).toBeLessThanOrEqual(SWEEP_FIGURE_BUDGET);
+    expect(figure.caption).toMatch(/Drawn at every \d+th point/);
+  });
+});
