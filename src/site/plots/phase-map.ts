@@ -180,7 +180,7 @@ export function gapHeatMapPlot(data: SweepData, seriesIndex: number, figureId: s
   const level = (v: number | null) => (v === null ? null : String(Math.min(GAP_LEVELS.length - 1, Math.floor((v / top) * GAP_LEVELS.length))));
   const keys = series.values.map(level);
   const xAxis = axisFor(ax.values, ax.symbol), yAxis = axisFor(ay.values, ay.symbol);
-  const frame = makeFrame(FIGURE_WIDTH, 400, xAxis, yAxis, { left: 62, right: 78, top: 14, bottom: 46 });
+  const frame = makeFrame(FIGURE_WIDTH, 400, xAxis, yAxis, { left: 70, right: 78, top: 14, bottom: 46 });
   const xEdges = cellEdges(ax.values), yEdges = cellEdges(ay.values);
   const fills: string[] = [];
   let defs = '';

@@ -138,7 +138,7 @@ export interface BandRangesInput {
  */
 export function bandRangesPlot(input: BandRangesInput): string {
   const yAxis = quasienergyAxis();
-  const frame = makeFrame(260, 320, { min: 0, max: 1 }, yAxis, { left: 62, right: 104, top: 14, bottom: 20 });
+  const frame = makeFrame(260, 320, { min: 0, max: 1 }, yAxis, { left: 70, right: 100, top: 14, bottom: 20 });
   const x0 = frame.left + 18, x1 = frame.left + 58;
   const bars: string[] = [];
   const labels: string[] = [];

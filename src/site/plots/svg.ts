@@ -71,7 +71,7 @@ export interface Margins {
   bottom: number;
 }
 
-export const DEFAULT_MARGINS: Margins = { left: 62, right: 14, top: 14, bottom: 46 };
+export const DEFAULT_MARGINS: Margins = { left: 70, right: 14, top: 14, bottom: 46 };
 
 export function makeFrame(width: number, height: number, xAxis: Pick<Axis, 'min' | 'max'>, yAxis: Pick<Axis, 'min' | 'max'>, margins: Margins = DEFAULT_MARGINS): Frame {
   const { left, right, top, bottom } = margins;

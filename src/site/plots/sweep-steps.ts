@@ -9,7 +9,7 @@ import type { Series, SweepData } from '../sweeps.ts';
 import { scaleMaximum } from './phase-map.ts';
 import { drawAxes, fmt, FIGURE_WIDTH, hatchPattern, makeFrame, niceTicks, parameterTicks, SERIES, svgDocument, svgText, type Axis } from './svg.ts';
 
-const STRIP = 40, STRIP_GAP = 10, GAP_PANEL = 150, PANEL_GAP = 12, TOP = 24, BOTTOM = 46, LEFT = 62, RIGHT = 14;
+const STRIP = 40, STRIP_GAP = 10, GAP_PANEL = 150, PANEL_GAP = 12, TOP = 24, BOTTOM = 46, LEFT = 72, RIGHT = 14;
 /** Strips drawn at most (the others are listed in the caption). */
 export const MAX_STRIPS = 6;
 
@@ -29,7 +29,7 @@ function range(series: Series): [number, number] {
 /** Height of a strip: room for a tick label per integer value, at least STRIP. */
 function stripHeight(series: Series): number {
   const [lo, hi] = range(series);
-  return Math.max(STRIP, Math.min(5, hi - lo + 1) * 17 + 6);
+  return Math.max(STRIP, Math.min(5, hi - lo + 1) * 19 + 6);
 }
 
 function strip(series: Series, index: number, xs: number[], cellEdges: number[], x: (v: number) => number, top: number, hatchId: string): string {
