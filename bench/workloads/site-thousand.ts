@@ -21,6 +21,7 @@ import { verifyCatalogue } from '../../src/catalogue/verify/catalogue.ts';
 import { writeResults } from '../../src/catalogue/records/write.ts';
 import { summarize } from '../../src/catalogue/records/summary.ts';
 import type { ModelRecord } from '../../src/catalogue/records/model-record.ts';
+import { seededRandom } from '../../test/support/random.ts';
 
 const COUNT = Number(process.env.MODELS ?? 1000);
 const BUILD_TARGET_S = 180;
@@ -30,18 +31,6 @@ const PAGE_TARGET_BYTES = 300 * 1024;
 const WORDS = ['lattice', 'drive', 'Floquet', 'chiral', 'edge', 'ribbon', 'winding', 'Chern', 'kagome', 'honeycomb', 'square', 'chain', 'pumped', 'kicked', 'harmonic', 'sublattice', 'staggered', 'anisotropic', 'dimerised', 'shaken'];
 const TAGS = ['benchmark', 'anomalous', 'chern-insulator', 'step-drive', 'kicked', 'high-frequency', 'pi-modes', 'majorana', 'flat-band', 'chiral', 'class-d', 'near-critical', 'collaborator', 'sweep', 'light', 'static', 'square-lattice', 'honeycomb', 'kagome', 'lieb'];
 const PEOPLE = ['Tomasz Brightwater', 'Ines Varga-Holm', 'Amaru Quispe-Lindqvist', 'Saoirse Ndiaye-Kowal', 'Henrik Obuya', 'Lin Marchetti', 'Priya Solberg', 'Oskar Mbeki-Laine'];
-
-/** Seeded pseudo-random numbers (mulberry32), so every run builds the same inventory. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function files(dir: string): string[] {
   return readdirSync(dir).flatMap((name) => {
@@ -56,7 +45,7 @@ await measure('site-thousand', async () => {
   const work = mkdtempSync(join(tmpdir(), 'strobe-site-bench-'));
   const modelsDir = join(work, 'models');
   mkdirSync(modelsDir, { recursive: true });
-  const rand = random(20261201);
+  const rand = seededRandom(20261201);
   const pick = <T>(list: T[]) => list[Math.floor(rand() * list.length)];
   const records: ModelRecord[] = [];
   for (let i = 0; i < COUNT; i++) {

@@ -59,10 +59,19 @@ export function publishedRecords(): ModelRecord[] {
  * be reproduced byte for byte. Records themselves carry no time on purpose.
  */
 export function recordDate(record: Pick<ModelRecord, 'id'>): string | null {
+  return fileDate(join(resultsFolder(), 'models', `${record.id}.json`));
+}
+
+/** The day the catalogue summary was written (same rules as recordDate). */
+export function resultsDate(): string | null {
+  return fileDate(join(resultsFolder(), 'catalogue.json'));
+}
+
+function fileDate(file: string): string | null {
   const epoch = process.env.SOURCE_DATE_EPOCH;
   if (epoch && /^\d+$/.test(epoch)) return new Date(Number(epoch) * 1000).toISOString().slice(0, 10);
   try {
-    return statSync(join(resultsFolder(), 'models', `${record.id}.json`)).mtime.toISOString().slice(0, 10);
+    return statSync(file).mtime.toISOString().slice(0, 10);
   } catch {
     return null;
   }

@@ -31,7 +31,8 @@ export interface PhaseMap {
   tuple: string;
 }
 
-function cellEdges(values: number[]): number[] {
+/** Cell edges around sample points, so each sample owns one interval (the ends extend by half a spacing). */
+export function cellEdges(values: number[]): number[] {
   if (values.length === 1) return [values[0] - 0.5, values[0] + 0.5];
   const edges = [values[0] - (values[1] - values[0]) / 2];
   for (let i = 0; i < values.length - 1; i++) edges.push((values[i] + values[i + 1]) / 2);

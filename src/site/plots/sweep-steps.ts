@@ -6,20 +6,12 @@
  * by a vertical line through every panel.
  */
 import type { Series, SweepData } from '../sweeps.ts';
-import { scaleMaximum } from './phase-map.ts';
+import { cellEdges as cellEdgesOf, scaleMaximum } from './phase-map.ts';
 import { drawAxes, fmt, FIGURE_WIDTH, hatchPattern, makeFrame, niceTicks, parameterTicks, SERIES, svgDocument, svgText, type Axis } from './svg.ts';
 
 const STRIP = 40, STRIP_GAP = 10, GAP_PANEL = 150, PANEL_GAP = 12, TOP = 24, BOTTOM = 46, LEFT = 72, RIGHT = 14;
 /** Strips drawn at most (the others are listed in the caption). */
 export const MAX_STRIPS = 6;
-
-function edges(values: number[]): number[] {
-  if (values.length === 1) return [values[0] - 0.5, values[0] + 0.5];
-  const out = [values[0] - (values[1] - values[0]) / 2];
-  for (let i = 0; i < values.length - 1; i++) out.push((values[i] + values[i + 1]) / 2);
-  out.push(values[values.length - 1] + (values[values.length - 1] - values[values.length - 2]) / 2);
-  return out;
-}
 
 function range(series: Series): [number, number] {
   const settled = series.values.filter((v): v is number => v !== null);
@@ -61,7 +53,7 @@ function strip(series: Series, index: number, xs: number[], cellEdges: number[],
 export function sweepStepsPlot(data: SweepData, figureId: string): string {
   const axis = data.axes[0];
   const xs = axis.values;
-  const cellEdges = edges(xs);
+  const cellEdges = cellEdgesOf(xs);
   const xMin = Math.min(cellEdges[0], cellEdges[cellEdges.length - 1]), xMax = Math.max(cellEdges[0], cellEdges[cellEdges.length - 1]);
   const strips = [...data.tuple, ...data.others].slice(0, MAX_STRIPS);
   const hasGaps = data.gaps.length > 0;
