@@ -60,7 +60,7 @@ export interface ModelPageData {
   /** Number of computed invariants in all. */
   computedCount: number;
   descriptionHtml: string;
-  hamiltonian: { segments: { index: number; label: string | null; windowHtml: string; formulaHtml: string; omitted: number }[]; definitionsHtml: string[] } | null;
+  hamiltonian: { dimension: 1 | 2; segments: { index: number; label: string | null; windowHtml: string; formulaHtml: string; potentialHtml: string | null; omitted: number }[]; definitionsHtml: string[] } | null;
   operators: { words: string; html: string; note: string | null }[];
   symmetryClass: string | null;
   parameters: { symbol: string; name: string; value: string; expression: string | null; description: string | null }[];
@@ -190,7 +190,8 @@ export function modelPageData(record: ModelRecord): ModelPageData {
     descriptionHtml: m?.description ? renderMarkdown(m.description) : '',
     hamiltonian: formulas
       ? {
-          segments: formulas.segments.map((s) => ({ index: s.index, label: s.label, windowHtml: texToHtml(s.window), formulaHtml: texToHtml(s.tex, true), omitted: s.omitted })),
+          dimension: formulas.dimension,
+          segments: formulas.segments.map((s) => ({ index: s.index, label: s.label, windowHtml: texToHtml(s.window), formulaHtml: texToHtml(s.tex, true), potentialHtml: s.potential ? texToHtml(s.potential, true) : null, omitted: s.omitted })),
           definitionsHtml: formulas.definitions.map((d) => texToHtml(d)),
         }
       : null,

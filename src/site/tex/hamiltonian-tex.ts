@@ -29,6 +29,8 @@ export interface SegmentFormula {
   kick: boolean;
   /** Display TeX of the segment Hamiltonian (or kick generator). */
   tex: string;
+  /** Display TeX of the segment's vector potential A(t), when it has one. */
+  potential: string | null;
   /** Terms not typeset (see the model file). */
   omitted: number;
 }
@@ -197,11 +199,11 @@ export function hamiltonianFormulas(doc: ModelDocument, value: (q: Quantity) => 
     else if (shown.length === 1) body = `${name} = ${shown[0].startsWith('-') ? `-${sum} ${shown[0].slice(1)}` : `${sum} ${shown[0]}`}`;
     else if (shown.length <= 3) body = `${name} = ${sum} \\Big[ ${joinTerms(shown, ' ')} \\Big]`;
     else body = `\\begin{aligned} ${name} = ${sum} \\Big[\\, & ${joinTerms(shown, ' \\\\ & ')} \\,\\Big] \\end{aligned}`;
-    if (peierls) body += ` ,\\qquad ${vectorPotentialTex(segment.vectorPotential!, dimension)}`;
+    const potential = peierls ? vectorPotentialTex(segment.vectorPotential!, dimension) : null;
     if (peierls) definitions.add(`\\mathbf d_{ab} = \\sum_i n_i\\mathbf a_i + \\mathbf r_b - \\mathbf r_a \\text{ (hop vector from } a \\text{ to } b)`);
     const window = kick ? `U_{${i + 1}} = e^{-iK_{${i + 1}}} \\text{ at } t = ${timeTex(start, period)}` : `${timeTex(start, period)} \\le t < ${timeTex(start + duration, period)}`;
     start += Number.isFinite(duration) ? duration : 0;
-    return { index: i + 1, label: segment.label ?? null, window, kick, tex: body, omitted };
+    return { index: i + 1, label: segment.label ?? null, window, kick, tex: body, potential, omitted };
   });
   if (doc.drive.segments.some((s) => (s.onsite ?? []).length > 0)) definitions.add(`n_{a,${dimension === 1 ? 'j' : '\\mathbf R'}} = c^\\dagger_{a,${dimension === 1 ? 'j' : '\\mathbf R'}} c_{a,${dimension === 1 ? 'j' : '\\mathbf R'}}`);
   return { dimension, segments, definitions: [...definitions] };

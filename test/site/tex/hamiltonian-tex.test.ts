@@ -55,7 +55,7 @@ describe('segment Hamiltonians', () => {
     expect(tex).toContain('\\left[1 + 0.5\\cos\\left(\\omega t\\right)\\right]');
     expect(tex).toContain('e^{i\\mathbf A(t)\\cdot\\mathbf d_{AB}}');
     expect(tex).toContain('c^\\dagger_{B,\\mathbf R+\\mathbf a_2} c^\\dagger_{A,\\mathbf R}');
-    expect(tex).toContain('\\mathbf A(t) = \\left(A_{0}\\cos\\left(\\omega t\\right),\\; A_{0}\\sin\\left(\\omega t\\right)\\right)');
+    expect(h.segments[0].potential).toBe('\\mathbf A(t) = \\left(A_{0}\\cos\\left(\\omega t\\right),\\; A_{0}\\sin\\left(\\omega t\\right)\\right)');
     expect(h.definitions).toContain('\\omega = 2\\pi/T');
     expect(typesets(tex)).toBe(true);
   });
