@@ -16,7 +16,8 @@ import { serveStatic } from '../static-server.ts';
 
 const HELP = `Verifies the catalogue (like strobe check: writes results/), builds the static
 site into dist/ from the results records, and with --serve serves it until
-interrupted (Ctrl-C), printing the address.
+interrupted (Ctrl-C), printing the address. Models marked "draft": true (as
+strobe new writes them) are verified but not published.
 
 Options:
   --serve          serve dist/ after building (default address 127.0.0.1:4321)
