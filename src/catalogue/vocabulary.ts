@@ -89,13 +89,6 @@ export function gapSubscript(label: number): string {
   return `${minus(String(Number(label.toPrecision(3))))}π`;
 }
 
-/** "the π gap", "the 0 gap", else "the gap at ε = π/(2T)". */
-export function gapName(label: number): string {
-  if (Math.abs(label) < 1e-9) return 'the 0 gap';
-  if (Math.abs(label - 1) < 1e-9) return 'the π gap';
-  return `the gap at ε = ${quasienergyText(label)}`;
-}
-
 const LATTICE_VECTOR = ['a₁', 'a₂'];
 
 /** "low edge of the ribbon finite along a₂". */

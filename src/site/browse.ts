@@ -39,7 +39,7 @@ const CLASS_MEANING: Record<string, string> = {
 };
 
 /** The value(s) of a facet for one model row. */
-export function facetValues(row: InventoryRow, key: FacetKey): string[] {
+function facetValues(row: InventoryRow, key: FacetKey): string[] {
   switch (key) {
     case 'class':
       return [row.cls ?? 'not stated'];

@@ -22,7 +22,7 @@ export interface CertificateView {
 }
 
 /** Grid in the words of the stage that used it. */
-export function gridText(stage: string, grid: number[]): string {
+function gridText(stage: string, grid: number[]): string {
   if (grid.length === 0) return '—';
   switch (stage) {
     case 'winding':

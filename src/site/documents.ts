@@ -144,7 +144,7 @@ function textOf(node: ElementContent): string {
   return '';
 }
 
-export function headingId(text: string): string {
+function headingId(text: string): string {
   return text.toLowerCase().normalize('NFKD').replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-+|-+$/g, '') || 'section';
 }
 

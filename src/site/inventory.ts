@@ -12,7 +12,7 @@ import { modelSource } from './model-source.ts';
 import type { InventoryRow } from './render/inventory-row.ts';
 
 /** Rows per page of a static list (inventory and browse pages). */
-export const PAGE_SIZE = 100;
+const PAGE_SIZE = 100;
 
 const rowCache = new Map<string, InventoryRow>();
 

@@ -12,8 +12,7 @@ import type { ModelSource } from './model-source.ts';
 export type LatticeKind = 'chain' | 'square' | 'checkerboard' | 'Lieb' | 'triangular' | 'honeycomb' | 'kagome' | 'rectangular' | 'centred rectangular' | 'oblique';
 export type DriveKind = 'static' | 'step drive' | 'kicked' | 'harmonic modulation' | 'light field';
 
-export const LATTICE_KINDS: LatticeKind[] = ['chain', 'square', 'checkerboard', 'Lieb', 'triangular', 'honeycomb', 'kagome', 'rectangular', 'centred rectangular', 'oblique'];
-export const DRIVE_KINDS: DriveKind[] = ['static', 'step drive', 'kicked', 'harmonic modulation', 'light field'];
+const DRIVE_KINDS: DriveKind[] = ['static', 'step drive', 'kicked', 'harmonic modulation', 'light field'];
 
 export const DRIVE_MEANING: Record<DriveKind, string> = {
   static: 'one constant Hamiltonian over the whole period (a static model run as a drive)',

@@ -30,7 +30,7 @@ export function inventoryPages(): InventoryPageData[] {
   return paginate(rows).map((page) => ({ page, total: rows.length, counts, facets }));
 }
 
-export const FACET_KEYS: FacetKey[] = ['class', 'lattice', 'drive', 'tag'];
+const FACET_KEYS: FacetKey[] = ['class', 'lattice', 'drive', 'tag'];
 
 export function browseIndex(): { facets: { key: FacetKey; title: string; values: FacetValue[] }[]; anomalous: number; attention: number; total: number } {
   const records = publishedRecords();

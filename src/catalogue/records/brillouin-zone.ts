@@ -31,7 +31,7 @@ export function reciprocalVectors(a1: Vec2, a2: Vec2): [Vec2, Vec2] {
 }
 
 /** Lagrange–Gauss reduction: the two shortest independent lattice vectors. */
-export function reducedBasis(a1: Vec2, a2: Vec2): [Vec2, Vec2] {
+function reducedBasis(a1: Vec2, a2: Vec2): [Vec2, Vec2] {
   let u = a1, v = a2;
   for (let guard = 0; guard < 100; guard++) {
     if (norm(u) > norm(v)) [u, v] = [v, u];
@@ -93,7 +93,7 @@ export interface PathCorner {
 }
 
 /** Reduced coordinates of a Cartesian momentum: sᵢ = k·aᵢ / 2π. */
-export function toReduced(k: Vec2, a1: Vec2, a2: Vec2): Vec2 {
+function toReduced(k: Vec2, a1: Vec2, a2: Vec2): Vec2 {
   // Rounded to 1e-12: zone points are simple fractions, and exact values keep plot labels and records clean.
   const clean = (x: number) => {
     const r = Math.round(x * 1e12) / 1e12;

@@ -163,7 +163,7 @@ export function phaseMapPlot(data: SweepData, figureId: string): PhaseMap {
 }
 
 /** Sequential colours for the gap heat map (viridis, 8 steps: dark = small gap). */
-export const GAP_LEVELS = ['#440154', '#46327e', '#365c8d', '#277f8e', '#1fa187', '#4ac16d', '#a0da39', '#fde725'];
+const GAP_LEVELS = ['#440154', '#46327e', '#365c8d', '#277f8e', '#1fa187', '#4ac16d', '#a0da39', '#fde725'];
 
 /** A round upper end for the colour scale (units π/T). */
 export function scaleMaximum(max: number): number {

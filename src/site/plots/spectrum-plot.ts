@@ -5,7 +5,6 @@
  * and gap. Quasienergy is periodic, so states are drawn as points, never
  * joined across ±π/T.
  */
-import { gapSubscript } from '../../catalogue/vocabulary.ts';
 import { drawAxes, fmt, FIGURE_WIDTH, makeFrame, markerPath, MARKERS, OKABE_ITO, quasienergyAxis, svgDocument, svgText, type Axis, type Tick } from './svg.ts';
 
 export type EdgeClass = 'low' | 'high' | 'both' | 'bulk';
@@ -53,7 +52,7 @@ function dotPath(points: [number, number][]): string {
   return onePerSpot(points).map(([x, y]) => `M${fmt(x)} ${fmt(y)}h0`).join('');
 }
 
-export function onePerSpot(points: [number, number][]): [number, number][] {
+function onePerSpot(points: [number, number][]): [number, number][] {
   const seen = new Set<string>();
   return points.filter(([x, y]) => {
     const key = `${Math.round(x * 2)},${Math.round(y * 2)}`;
@@ -166,9 +165,4 @@ export function bandRangesPlot(input: BandRangesInput): string {
   const axis = drawAxes(frame, { label: '', min: 0, max: 1, ticks: [] }, yAxis, { box: false });
   const spine = `<line x1="${frame.left}" x2="${frame.left}" y1="${frame.top}" y2="${fmt(frame.height - frame.bottom)}" class="plot-tick"/>`;
   return svgDocument(frame.width, frame.height, input.title, axis + spine + bars.join('') + labels.join(''), 'plot-narrow');
-}
-
-/** "W_π = 1" style label of a gap from its subscript and value. */
-export function gapValueText(symbol: string, gap: number, value: number | null): string {
-  return `${symbol}_${gapSubscript(gap)} = ${value === null ? '?' : String(value).replace('-', '−')}`;
 }

@@ -14,9 +14,6 @@ import { escapeHtml } from '../render/escape.ts';
 
 export const FIGURE_WIDTH = 420;
 
-export const INK = '#1d2430';
-export const MUTED = '#6b7280';
-export const GRID = '#d4d8de';
 /** Okabe–Ito colours. */
 export const OKABE_ITO = {
   blue: '#0072B2',
@@ -71,7 +68,7 @@ export interface Margins {
   bottom: number;
 }
 
-export const DEFAULT_MARGINS: Margins = { left: 70, right: 14, top: 14, bottom: 46 };
+const DEFAULT_MARGINS: Margins = { left: 70, right: 14, top: 14, bottom: 46 };
 
 export function makeFrame(width: number, height: number, xAxis: Pick<Axis, 'min' | 'max'>, yAxis: Pick<Axis, 'min' | 'max'>, margins: Margins = DEFAULT_MARGINS): Frame {
   const { left, right, top, bottom } = margins;
@@ -128,7 +125,7 @@ function gcd(a: number, b: number): number {
 }
 
 /** p/q·π as text: π, −π/2, 3π/4, 2π. */
-export function piFraction(p: number, q: number, unit = 'π'): string {
+function piFraction(p: number, q: number, unit = 'π'): string {
   if (p === 0) return '0';
   const g = gcd(Math.abs(p), q);
   const [n, d] = [p / g, q / g];

@@ -12,7 +12,7 @@ import type { InventoryRow } from '../render/inventory-row.ts';
 import { parameterSymbol } from '../symbols.ts';
 import { INDEX_OPTIONS, type SearchDocument } from './search-options.ts';
 
-export function searchDocument(record: ModelRecord, row: InventoryRow): SearchDocument {
+function searchDocument(record: ModelRecord, row: InventoryRow): SearchDocument {
   const m = record.model;
   return {
     id: record.id,

@@ -4,7 +4,7 @@
  */
 import type { Options, SearchOptions } from 'minisearch';
 
-export const SEARCH_FIELDS = ['title', 'summary', 'tags', 'facets', 'invariants', 'parameters', 'maintainers', 'references'] as const;
+const SEARCH_FIELDS = ['title', 'summary', 'tags', 'facets', 'invariants', 'parameters', 'maintainers', 'references'] as const;
 
 export interface SearchDocument {
   id: string;
@@ -23,7 +23,7 @@ export interface SearchDocument {
 const STOP_WORDS = new Set(['a', 'an', 'and', 'as', 'at', 'by', 'for', 'from', 'in', 'is', 'it', 'its', 'of', 'on', 'or', 'the', 'then', 'to', 'with', 'when', 'one', 'per']);
 
 /** Lower case, accents folded ("Ostvik" finds "Östvik"), π kept as a letter, common words dropped. */
-export function processTerm(term: string): string | null {
+function processTerm(term: string): string | null {
   const t = term.normalize('NFKD').replace(/[\u0300-\u036f]/g, '').toLowerCase();
   return t.length > 0 && !STOP_WORDS.has(t) ? t : null;
 }

@@ -17,9 +17,9 @@ import { orbitalTex } from '../symbols.ts';
 import { isCompound, numberTex, quantityTex } from './expression-tex.ts';
 
 /** Terms typeset per segment before the rest is summarised (keeps pages small). */
-export const MAX_TERMS_SHOWN = 24;
+const MAX_TERMS_SHOWN = 24;
 /** Terms typeset on one page in all; later segments are summarised by their term count. */
-export const MAX_TERMS_PER_PAGE = 120;
+const MAX_TERMS_PER_PAGE = 120;
 
 export interface SegmentFormula {
   index: number;

@@ -7,7 +7,7 @@
  */
 import katex from 'katex';
 
-export const KATEX_OPTIONS = {
+const KATEX_OPTIONS = {
   trust: false,
   strict: 'ignore' as const,
   throwOnError: false,

@@ -8,7 +8,7 @@ import type { MatrixEntry, ModelDocument, OperatorMatrix } from '../../catalogue
 import { quantityTex } from './expression-tex.ts';
 
 /** Largest matrix typeset; bigger ones are described by their size. */
-export const MAX_MATRIX = 8;
+const MAX_MATRIX = 8;
 
 export interface OperatorFormula {
   /** chiral | particle-hole | time-reversal */
