@@ -9,16 +9,10 @@
  */
 import type { LatticeGeometry, Point, SegmentDrawing } from '../lattice.ts';
 import { escapeHtml } from '../render/escape.ts';
-import { fmt, markerPath, OKABE_ITO, svgDocument, svgText, type MARKERS } from './svg.ts';
+import { fmt, markerPath, OKABE_ITO, SERIES, svgDocument, svgText } from './svg.ts';
 
-export const ORBITAL_STYLE: { colour: string; marker: keyof typeof MARKERS }[] = [
-  { colour: OKABE_ITO.blue, marker: 'circle' },
-  { colour: OKABE_ITO.vermillion, marker: 'square' },
-  { colour: OKABE_ITO.green, marker: 'triangleUp' },
-  { colour: OKABE_ITO.purple, marker: 'diamond' },
-  { colour: OKABE_ITO.orange, marker: 'triangleDown' },
-  { colour: OKABE_ITO.sky, marker: 'circle' },
-];
+/** Orbitals differ by colour and by marker shape. */
+export const ORBITAL_STYLE = SERIES;
 
 /** Panels drawn at most; further segments are listed in words. */
 export const MAX_PANELS = 12;

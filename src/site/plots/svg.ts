@@ -25,14 +25,17 @@ export const OKABE_ITO = {
   yellow: '#F0E442',
   black: '#000000',
 } as const;
-/** Line colours in order of use, with a dash pattern each (the second channel). */
-export const SERIES: { colour: string; dash: string }[] = [
-  { colour: OKABE_ITO.blue, dash: '' },
-  { colour: OKABE_ITO.vermillion, dash: '6 3' },
-  { colour: OKABE_ITO.green, dash: '2 2' },
-  { colour: OKABE_ITO.purple, dash: '8 3 2 3' },
-  { colour: OKABE_ITO.orange, dash: '4 4' },
-  { colour: OKABE_ITO.sky, dash: '1 3' },
+/**
+ * Colours in order of use, each with its second channel: a dash pattern for
+ * lines, a marker shape for points (orbitals in lattice drawings).
+ */
+export const SERIES: { colour: string; dash: string; marker: 'circle' | 'square' | 'triangleUp' | 'diamond' | 'triangleDown' }[] = [
+  { colour: OKABE_ITO.blue, dash: '', marker: 'circle' },
+  { colour: OKABE_ITO.vermillion, dash: '6 3', marker: 'square' },
+  { colour: OKABE_ITO.green, dash: '2 2', marker: 'triangleUp' },
+  { colour: OKABE_ITO.purple, dash: '8 3 2 3', marker: 'diamond' },
+  { colour: OKABE_ITO.orange, dash: '4 4', marker: 'triangleDown' },
+  { colour: OKABE_ITO.sky, dash: '1 3', marker: 'circle' },
 ];
 
 export interface Tick {
