@@ -1,5 +1,7 @@
 // Astro configuration for the Strobe Atlas catalogue site.
 // The site only presents results records written by the catalogue layer (src/catalogue).
+// Scripts and styles are always emitted as files, never inlined into pages, so the
+// pages run under a Content-Security-Policy of script-src 'self' (no inline script).
 import { defineConfig } from 'astro/config';
 
 export default defineConfig({
@@ -8,5 +10,6 @@ export default defineConfig({
   trailingSlash: 'ignore',
   // Scripts ship as files, never inline: the Content-Security-Policy of the preview
   // server (src/cli/static-server.ts) allows scripts from the site's own files only.
+  build: { inlineStylesheets: 'never' },
   vite: { build: { assetsInlineLimit: 0 } },
 });

@@ -104,6 +104,10 @@ export interface ModelDocument {
   maintainers: ProvenanceMaintainers;
   references?: ProvenanceReferences;
   dates: EntryDates;
+  /**
+   * true while the entry is a draft: strobe check verifies it, but the site does not publish it. Remove the field (or set false) to publish.
+   */
+  draft?: boolean;
   lattice: Lattice;
   parameters?: Parameters;
   drive: Drive;

@@ -10,8 +10,8 @@
  * (default ./results); STROBE_INVENTORY, a JSON list of the model files or
  * folders (default ["models"]).
  */
-import { existsSync, readFileSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { existsSync, readFileSync, statSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import type { CatalogueSummary, ModelRecord, ModelStatus } from '../catalogue/records/model-record.ts';
 import { selectSiteRecords, selectionReport, type SkippedModel } from '../catalogue/records/site-selection.ts';
 import { summarize } from '../catalogue/records/summary.ts';
@@ -66,47 +66,51 @@ export function loadSiteData(): SiteData {
   return cached;
 }
 
-/** The conventions document (Markdown) that every verdict on the site refers to. */
-export function conventionsMarkdown(): string {
-  return readFileSync(resolve('docs', 'conventions.md'), 'utf8');
+/** The engine that produced the records the site is built from. */
+export function siteEngine(): CatalogueSummary['engine'] {
+  return loadSiteData().summary.engine;
 }
 
-/** The source text of a model file as it was verified (for downloads), or null. */
-export function modelSource(record: ModelRecord): string | null {
+/** The source text of a model file as it was verified (for downloads and drawings), or null. */
+export function modelSourceText(record: Pick<ModelRecord, 'id'>): string | null {
   const file = loadSiteData().sources.get(record.id);
   return file !== undefined && existsSync(file) ? readFileSync(file, 'utf8') : null;
 }
 
-export const STATUS_TEXT: Record<ModelStatus, string> = {
-  verified: 'verified',
-  disputed: 'disputed',
-  unsettled: 'unsettled',
-  'portrait-only': 'no claims',
-  invalid: 'invalid',
-  failed: 'not computed',
-};
-
-export const STATUS_EXPLANATION: Record<ModelStatus, string> = {
-  verified: 'every claim was confirmed by recomputation',
-  disputed: 'at least one claim is contradicted by recomputation',
-  unsettled: 'no claim is contradicted, but at least one could not be settled numerically',
-  'portrait-only': 'the file makes no claims; the computed invariants are shown',
-  invalid: 'the model file did not load or compile',
-  failed: 'the computation did not finish',
-};
-
-/** Formats a quasienergy in units of π/T as text ("0", "π", "0.5π"). */
-export function quasienergyText(value: number | null): string {
-  if (value === null) return '—';
-  if (Math.abs(value) < 1e-12) return '0';
-  if (Math.abs(value - 1) < 1e-12) return 'π/T';
-  return `${Number(value.toPrecision(4))}π/T`;
+/** A project document (docs/<name>.md). */
+export function documentMarkdown(name: 'conventions' | 'model-format'): string {
+  return readFileSync(resolve('docs', `${name}.md`), 'utf8');
 }
 
-export function numberText(value: number | boolean | null | undefined, digits = 4): string {
-  if (value === null || value === undefined) return '—';
-  if (typeof value === 'boolean') return value ? 'yes' : 'no';
-  if (Number.isInteger(value)) return String(value);
-  if (Math.abs(value) !== 0 && (Math.abs(value) < 1e-3 || Math.abs(value) >= 1e5)) return value.toExponential(2);
-  return String(Number(value.toPrecision(digits)));
+/**
+ * The records the site publishes, sorted by title: every record except drafts
+ * (files marked "draft": true are verified but not published).
+ */
+export function publishedRecords(): ModelRecord[] {
+  const { records } = loadSiteData();
+  return [...records.values()].filter((r) => !r.model?.draft).sort((a, b) => (a.model?.title ?? a.id).localeCompare(b.model?.title ?? b.id) || a.id.localeCompare(b.id));
+}
+
+/**
+ * The day a record was written (YYYY-MM-DD, UTC), from the file's modification
+ * time; SOURCE_DATE_EPOCH (seconds), when set, replaces it so that builds can
+ * be reproduced byte for byte. Records themselves carry no time on purpose.
+ */
+export function recordDate(record: Pick<ModelRecord, 'id'>): string | null {
+  return fileDate(join(resultsFolder(), 'models', `${record.id}.json`));
+}
+
+/** The day the catalogue summary was written (same rules as recordDate). */
+export function resultsDate(): string | null {
+  return fileDate(join(resultsFolder(), 'catalogue.json'));
+}
+
+function fileDate(file: string): string | null {
+  const epoch = process.env.SOURCE_DATE_EPOCH;
+  if (epoch && /^\d+$/.test(epoch)) return new Date(Number(epoch) * 1000).toISOString().slice(0, 10);
+  try {
+    return statSync(file).mtime.toISOString().slice(0, 10);
+  } catch {
+    return null;
+  }
 }

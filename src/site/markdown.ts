@@ -3,4 +3,4 @@
  * so that `strobe check` refuses exactly what a page could not show; pages
  * import it from here.
  */
-export { DESCRIPTION_LIMITS, DOCUMENT_LIMITS, escapeHtml, renderDescription, renderMarkdown } from '../catalogue/description/render.ts';
+export { DESCRIPTION_LIMITS, DOCUMENT_LIMITS, escapeHtml, katexOptions, renderDescription, renderMarkdown, sanitizeSchema } from '../catalogue/description/render.ts';

@@ -79,6 +79,9 @@ describe('strobe new', () => {
     const { model, diagnostics } = checkModelSource('models/driven-ladder.json', readFileSync(file, 'utf8'));
     expect(diagnostics).toEqual([]);
     expect(model?.id).toBe('driven-ladder');
+    // A new file is a draft: verified like any model, left out of the site until the author publishes it.
+    expect(model?.document.draft).toBe(true);
+    expect(first.stdout).toMatch(/a draft: not published on the site until you remove "draft": true/);
     writeFileSync(file, '{"edited": true}');
     const second = await run(['new', 'driven-ladder'], dir);
     expect(second.code).toBe(1);

@@ -4,10 +4,12 @@
  * error; the site runs the same function to publish it, so what passes the
  * check is what the page shows.
  *
- * Pipeline: Markdown → mdast (remark, with remark-math for $…$ and $$…$$)
+ * Pipeline: Markdown → mdast (remark, with remark-gfm for tables and
+ * remark-math for $…$ and $$…$$)
  * → hast (remark-rehype; raw HTML in the source is dropped, never passed through)
  * → sanitised with rehype-sanitize (GitHub-style allow list, plus the two math
- * classes) → math typeset by KaTeX on the server (rehype-katex) → HTML.
+ * classes) → math typeset by KaTeX on the server (rehype-katex-raw.ts) → tables
+ * wrapped so they scroll on a phone (rehype-wrap-tables.ts) → HTML.
  * Sanitising happens before KaTeX, so only KaTeX's own output is trusted.
  *
  * Why limits: the parser and KaTeX are fast on ordinary text but not on
@@ -24,11 +26,16 @@
  * six levels each) renders in about 2 s.
  */
 import { remark } from 'remark';
+import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkRehype from 'remark-rehype';
 import rehypeSanitize, { defaultSchema, type Options as SanitizeSchema } from 'rehype-sanitize';
-import rehypeKatex from 'rehype-katex';
 import rehypeStringify from 'rehype-stringify';
+import { escapeHtml } from './escape-html.ts';
+import { rehypeKatexRaw } from './rehype-katex-raw.ts';
+import { rehypeWrapTables } from './rehype-wrap-tables.ts';
+
+export { escapeHtml };
 
 export interface MarkdownLimits {
   /** Characters of Markdown source. */
@@ -83,7 +90,7 @@ export interface MarkdownProblem {
 
 export type RenderResult = { ok: true; html: string } | { ok: false; problem: MarkdownProblem };
 
-const sanitizeSchema: SanitizeSchema = {
+export const sanitizeSchema: SanitizeSchema = {
   ...defaultSchema,
   attributes: {
     ...defaultSchema.attributes,
@@ -91,14 +98,24 @@ const sanitizeSchema: SanitizeSchema = {
   },
 };
 
+/**
+ * KaTeX for untrusted text: trust off keeps \href, \url, \includegraphics and
+ * \html… inert; maxSize bounds \rule and spaces (em); maxExpand bounds macros.
+ */
+export function katexOptions(limits: MarkdownLimits = DESCRIPTION_LIMITS) {
+  return { strict: 'ignore' as const, trust: false, maxExpand: limits.maxExpand, maxSize: 20, throwOnError: false };
+}
+
 function processorFor(limits: MarkdownLimits) {
   return remark()
+    .use(remarkGfm)
     .use(remarkMath)
     .use(remarkRehype)
     .use(rehypeSanitize, sanitizeSchema)
-    // trust: false keeps \href, \url, \includegraphics and \html… inert; maxSize bounds \rule and spaces (em).
-    .use(rehypeKatex, { strict: 'ignore', trust: false, maxExpand: limits.maxExpand, maxSize: 20 })
-    .use(rehypeStringify);
+    .use(rehypeKatexRaw, katexOptions(limits))
+    .use(rehypeWrapTables)
+    // Raw nodes are only KaTeX's own output, inserted after sanitising.
+    .use(rehypeStringify, { allowDangerousHtml: true });
 }
 
 const processors = new Map<MarkdownLimits, ReturnType<typeof processorFor>>();
@@ -243,11 +260,3 @@ export function renderMarkdown(markdown: string, limits: MarkdownLimits = DESCRI
   return `<p class="render-error">This text was not rendered: it ${escapeHtml(message)}${hint ? ` (${escapeHtml(hint)})` : ''}.</p>`;
 }
 
-export function escapeHtml(text: string): string {
-  return text
-    .replaceAll('&', '&amp;')
-    .replaceAll('<', '&lt;')
-    .replaceAll('>', '&gt;')
-    .replaceAll('"', '&quot;')
-    .replaceAll("'", '&#39;');
-}

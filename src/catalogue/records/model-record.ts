@@ -131,6 +131,8 @@ export interface ModelRecord {
     dates: { created: string; updated: string | null };
     dimension: number | null;
     symmetryClass: string | null;
+    /** Marked "draft": true in the file: verified, but not published on the site. */
+    draft: boolean;
   } | null;
   parameters: { name: string; value: number | null; expression: string | null; description: string | null }[];
   drive: {
@@ -181,6 +183,7 @@ export interface CatalogueSummary {
     statusReason: string;
     anomalous: AnomalousClass;
     claims: { confirmed: number; contradicted: number; unsettled: number };
+    draft: boolean;
   }[];
 }
 

@@ -33,6 +33,7 @@ export function modelMetadata(doc: ModelDocument): NonNullable<ModelRecord['mode
     dates: { created: doc.dates.created, updated: doc.dates.updated ?? null },
     dimension: doc.lattice?.dimension ?? null,
     symmetryClass: doc.claims?.symmetryClass ?? null,
+    draft: doc.draft === true,
   };
 }
 

@@ -236,7 +236,7 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
           certificate.notes.push(why);
           verdicts.push({
             claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.cut, outcome: 'unsettled', claimed: claim.value,
-            computed: null, estimate: null, message: `The Chern number of band ${claim.band} above the cut is ill-defined: ${why}.`,
+            computed: null, estimate: null, message: `The Chern number of band ${claim.band + 1} above the cut is ill-defined: ${why}.`,
             hint: 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch', certificate,
           });
           break;
@@ -249,7 +249,7 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
           const v = chernEvidence(p, b, policy).value;
           if (v !== null) alternatives.push({ value: v, hint: `this value belongs to band ${i} above the cut (quasienergies ${b.range[0].toFixed(3)} to ${b.range[1].toFixed(3)} π/T)` });
         });
-        verdicts.push(integerVerdict(claim, claim.cut, `The Chern number of band ${claim.band} above the cut at ${formatQuasienergy(claim.cut)}`, ev, alternatives));
+        verdicts.push(integerVerdict(claim, claim.cut, `The Chern number of band ${claim.band + 1} above the cut at ${formatQuasienergy(claim.cut)}`, ev, alternatives));
         break;
       }
       case 'minimal-gap':
@@ -274,7 +274,7 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
     if (!b.chern) continue;
     const id = `band-${b.index}/chern`;
     const claimed = claims.some((c) => c.kind === 'chern' && bandsFromCut(p.bands, c.cut)?.[c.band] === b);
-    entries.push(entry(id, 'chern', null, `Chern number of band ${b.index} (${b.range[0].toFixed(3)} to ${b.range[1].toFixed(3)} π/T)`, chernEvidence(p, b, policy), claimed));
+    entries.push(entry(id, 'chern', null, `Chern number of band ${b.index + 1} above the cut (${b.range[0].toFixed(3)} to ${b.range[1].toFixed(3)} π/T)`, chernEvidence(p, b, policy), claimed));
   }
   for (const r of p.ribbons) {
     for (const c of r.counts) {

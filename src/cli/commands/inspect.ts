@@ -7,6 +7,7 @@ import { inspectModel, ModelNotFoundError } from '../../catalogue/verify/inspect
 import type { Certificate } from '../../catalogue/verify/certificate.ts';
 import type { CliIO } from './verify-summary.ts';
 import { canonicalJson } from '../../catalogue/records/canonical-json.ts';
+import { ANOMALOUS_LABEL, STATUS_LABEL, quantityName } from '../../catalogue/vocabulary.ts';
 
 export const describe = `strobe inspect <id | file> [--no-cache] [--json]
   Verifies one model and shows its quasienergy gaps, bands, invariants and the
@@ -34,7 +35,7 @@ export function certificateLine(c: Certificate): string {
 export function formatInspection(record: ModelRecord, timings: ModelTimings): string {
   const lines: string[] = [];
   lines.push(`${record.id} — ${record.model?.title ?? '(did not load)'}`);
-  lines.push(`file ${record.file}; status ${record.status}: ${record.statusReason}`);
+  lines.push(`file ${record.file}; status ${STATUS_LABEL[record.status]}: ${record.statusReason}`);
   if (record.drive) {
     const d = record.drive;
     lines.push(`drive: period ${num(d.period)}, ${d.segments.length} segment(s), states ${d.states.join(', ')}${d.nambu ? ' (Nambu)' : ''}${d.handedness === 'n/a' ? '' : `, basis ${d.handedness}-handed`}`);
@@ -52,7 +53,8 @@ export function formatInspection(record: ModelRecord, timings: ModelTimings): st
   if (record.claims.length > 0) {
     lines.push('', 'Claims');
     for (const v of record.claims) {
-      lines.push(`  ${v.claim}: ${v.outcome} (claimed ${String(v.claimed)}, computed ${v.computed === null ? '—' : String(v.computed)})`);
+      const name = quantityName(v.claim, { symmetryClass: record.model?.symmetryClass, cut: v.kind === 'chern' ? v.gap : null }).words;
+      lines.push(`  ${name} [${v.claim}]: ${v.outcome} (claimed ${String(v.claimed)}, computed ${v.computed === null ? '—' : String(v.computed)})`);
       lines.push(`    ${v.message}`);
       if (v.hint) lines.push(`    hint: ${v.hint}`);
       const cert = certificateLine(v.certificate);
@@ -64,7 +66,7 @@ export function formatInspection(record: ModelRecord, timings: ModelTimings): st
     lines.push('', 'Computed but not claimed');
     for (const e of unclaimed) lines.push(`  ${e.label}: ${e.settled ? String(e.value) : `unsettled (nearest ${num(e.estimate)})`}`);
   }
-  lines.push('', `anomalous: ${record.anomalous.classification} — ${record.anomalous.reason}`);
+  lines.push('', `anomalous phase: ${ANOMALOUS_LABEL[record.anomalous.classification]} — ${record.anomalous.reason}`);
   for (const s of record.sweeps) lines.push(`sweep ${s.name}: ${s.points.length} point(s) over ${s.axes.map((x) => x.parameter).join(' × ')}`);
   for (const d of record.diagnostics) lines.push(`${d.severity}: ${d.file}:${d.line}:${d.column} ${d.pointer} ${d.message}${d.hint ? ` (${d.hint})` : ''}`);
   lines.push('', timings.cached ? 'taken from the cache (unchanged since the last run)' : `computed in ${(timings.totalMs / 1000).toFixed(2)} s`);

@@ -23,7 +23,8 @@ import { processAlive } from '../../catalogue/records/write.ts';
 
 const HELP = `Verifies the catalogue (like strobe check: writes results/), builds the static
 site into dist/ from the results records, and with --serve serves it until
-interrupted (Ctrl-C), printing the address.
+interrupted (Ctrl-C), printing the address. Models marked "draft": true (as
+strobe new writes them) are verified but not published.
 
 Only records that match the model files as they are now are published (each
 record carries a hash of its file): a model whose file changed after it was

@@ -12,7 +12,7 @@ import { dirname, join } from 'node:path';
 import { formatDiagnostic } from '../../catalogue/diagnostics.ts';
 import type { CatalogueReport, ProgressEvent } from '../../catalogue/verify/catalogue.ts';
 import { verifyCatalogue } from '../../catalogue/verify/catalogue.ts';
-import type { CatalogueSummary, ModelRecord, ModelStatus } from '../../catalogue/records/model-record.ts';
+import type { CatalogueSummary, ModelRecord } from '../../catalogue/records/model-record.ts';
 import { canonicalJson } from '../../catalogue/records/canonical-json.ts';
 import { finishResults, removeStaleTemporaries, writeRecordFile } from '../../catalogue/records/write.ts';
 import { DEFAULT_MEMORY_LIMIT_BYTES, DEFAULT_TIME_LIMIT_SECONDS } from '../../catalogue/budget/limits.ts';
@@ -22,6 +22,7 @@ import { exitCodeFor } from '../../catalogue/verify/status.ts';
 import { junitXml, type JunitSuite } from '../../catalogue/junit.ts';
 import { parseShard, ShardSpecError, type ShardSpec } from '../../catalogue/shard.ts';
 import { modelStatusOfStep } from '../../catalogue/workers/status-step.ts';
+import { ANOMALOUS_LABEL, STATUS_LABEL, STATUS_ORDER, count, quantityName } from '../../catalogue/vocabulary.ts';
 
 /** Where commands write: process.stdout / process.stderr fit this shape. */
 export interface CliIO {
@@ -213,15 +214,13 @@ export function progressReporter(io: CliIO, refreshMs = 500, heartbeatMs = 10_00
   };
 }
 
-const STATUS_ORDER: ModelStatus[] = ['disputed', 'invalid', 'failed', 'unsettled', 'portrait-only', 'verified'];
-
 /** The summary table: one line per model, then totals. */
 export function summaryTable(report: Pick<CatalogueReport, 'records' | 'timings'>): string {
   const rows = report.records.map((r) => [
-    r.id,
-    r.status,
+    r.model?.draft ? `${r.id} (draft)` : r.id,
+    STATUS_LABEL[r.status],
     `${r.counts.confirmed}/${r.counts.contradicted}/${r.counts.unsettled}`,
-    r.anomalous.classification,
+    ANOMALOUS_LABEL[r.anomalous.classification],
     report.timings[r.id]?.cached ? 'cached' : seconds(report.timings[r.id]?.totalMs ?? 0),
   ]);
   const header = ['model', 'status', 'claims ✓/✗/?', 'anomalous', 'time'];
@@ -229,7 +228,9 @@ export function summaryTable(report: Pick<CatalogueReport, 'records' | 'timings'
   const fmt = (row: string[]) => row.map((cell, c) => cell.padEnd(widths[c])).join('  ').trimEnd();
   const lines = [fmt(header), widths.map((w) => '─'.repeat(w)).join('  '), ...rows.map(fmt)];
   const counts = STATUS_ORDER.map((s) => [s, report.records.filter((r) => r.status === s).length] as const).filter(([, n]) => n > 0);
-  lines.push('', `${report.records.length} model(s): ${counts.map(([s, n]) => `${n} ${s}`).join(', ') || 'none'}`);
+  lines.push('', `${count(report.records.length, 'model')}: ${counts.map(([s, n]) => `${n} ${STATUS_LABEL[s]}`).join(', ') || 'none'}`);
+  const drafts = report.records.filter((r) => r.model?.draft).length;
+  if (drafts > 0) lines.push(`${count(drafts, 'draft')} (verified, but not published on the site until "draft": true is removed)`);
   return lines.join('\n') + '\n';
 }
 
@@ -247,9 +248,10 @@ export function problemDetails(records: ModelRecord[]): string {
     } else {
       const bad = r.claims.filter((v) => v.outcome !== 'confirmed');
       if (bad.length === 0 && warnings.length === 0) continue;
-      out.push(`${r.id}: ${r.status}`);
+      out.push(`${r.id}: ${STATUS_LABEL[r.status]}`);
       for (const v of bad) {
-        out.push(`  ${r.file} ${v.pointer}  ${v.outcome}: ${v.message}`);
+        const name = quantityName(v.claim, { symmetryClass: r.model?.symmetryClass, cut: v.kind === 'chern' ? v.gap : null }).words;
+        out.push(`  ${r.file} ${v.pointer}  ${name}: ${v.outcome}: ${v.message}`);
         if (v.hint) out.push(`    hint: ${v.hint}`);
       }
       for (const d of warnings) out.push(`  ${formatDiagnostic(d)}`);
@@ -374,7 +376,7 @@ export async function runMerge(argv: string[], io: CliIO): Promise<number> {
   try {
     const merged = mergeSummaries(parts);
     writeFileEnsuringDir(out, canonicalJson(merged));
-    io.stdout.write(`${merged.models.length} model(s) from ${files.length} shard(s) written to ${out}\n`);
+    io.stdout.write(`${count(merged.models.length, 'model')} from ${count(files.length, 'shard')} written to ${out}\n`);
     return exitCodeFor(merged.models.map((m) => m.status), strict);
   } catch (e) {
     if (e instanceof MergeError) {

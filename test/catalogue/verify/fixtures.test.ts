@@ -55,7 +55,8 @@ describe('verification of purpose-built models', () => {
     expect(Math.abs(gap0.minimalGap - 1 / Math.PI)).toBeLessThan(1e-6);
     // Band path for plots: at Γ, E = ±|d(0)| = ±(m + 2) = ±3, so ε = ±3T/π = ±1.5/π π/T (rounded to 1e-5 in records).
     const path = r.analysis!.bandPath!;
-    expect(path.corners.map((c) => c.label)).toEqual(['Γ', 'b₁/2', '(b₁+b₂)/2', 'Γ']);
+    expect(path.corners.map((c) => c.label)).toEqual(['Γ', 'X', 'M', 'Γ']);
+    expect(path.momenta[path.corners[2].index]).toEqual([0.5, 0.5]);
     expect(Math.abs(path.quasienergies[0][0] + 1.5 / Math.PI)).toBeLessThanOrEqual(5e-6);
     expect(Math.abs(path.quasienergies[0][1] - 1.5 / Math.PI)).toBeLessThanOrEqual(5e-6);
     const cert = verdict('qwz-correct', 'band-0/chern').certificate;
