@@ -8,6 +8,27 @@
  */
 import type { IntegerEstimate } from './certificates.ts';
 
+/**
+ * The certified lower bound of a minimal direct gap (certified-minimum.ts): the
+ * true minimum over the zone lies in [lower, minimalGap], up to the stated
+ * evaluation margin, when `status` is 'above' or 'below'.
+ */
+export interface GapCertificate {
+  /** Lower bound on the minimal direct gap over the whole zone (units π/T; 0 when none could be shown). */
+  lower: number;
+  /** 'above': lower > decisionLevel (open); 'below': a sample at or below it; 'undecided': the evaluation budget ran out in between. */
+  status: 'above' | 'below' | 'undecided';
+  /** Floquet operators evaluated by the bound, and cells examined (coarse grid included). */
+  evaluations: number;
+  cells: number;
+  /** Lipschitz constants of the direct gap per direction (units π/T per unit of reduced momentum), from the drive's terms. */
+  lipschitz: number[];
+  /** Error allowed for one evaluation (twice the time-integration bound, units π/T). */
+  margin: number;
+  /** The gap tolerance the bound was decided against (units π/T). */
+  decisionLevel: number;
+}
+
 /** A quasienergy gap: an arc of the quasienergy circle containing no bulk state on the grid. */
 export interface GapReport {
   /** The quasienergy that names the gap: the claimed label when it falls inside, else the arc's midpoint (units π/T). */
@@ -18,10 +39,12 @@ export interface GapReport {
   /** Smallest direct gap over the k grid (units π/T) and where it occurs (reduced momenta). */
   minimalGap: number;
   momentumAtMinimum: number[];
-  /** Whether the gap counts as open: minimalGap above the gap tolerance. */
+  /** Whether the gap counts as open: the certified lower bound of the minimal direct gap exceeds the gap tolerance. */
   open: boolean;
   /** Width of the arc free of states on the k grid (the indirect gap, units π/T); minimalGap ≥ arcWidth. */
   arcWidth: number;
+  /** The certified lower bound behind `open` (absent from hand-made reports). */
+  certified?: GapCertificate;
 }
 
 /** A Chern number with the evidence of its Fukui–Hatsugai–Suzuki lattice computation. */
@@ -151,10 +174,12 @@ export interface ChainGapReport {
   /** Distance from the label to the nearest bulk quasienergy over k (units π/T), and where. */
   clearance: number;
   clearanceMomentum: number;
-  /** clearance > gapTolerance. */
+  /** clearance > gapTolerance and the certified lower bound of the minimal direct gap above the gap tolerance. */
   open: boolean;
   /** Decay length estimate v_max / clearance of end states (cells; Infinity when closed). */
   decayLengthEstimate: number;
+  /** The certified lower bound of the minimal direct gap; `open` also needs it above the tolerance. */
+  certified?: GapCertificate;
 }
 
 /** A declared symmetry and how well the drive satisfies it. */

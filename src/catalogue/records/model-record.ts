@@ -38,8 +38,10 @@ export interface GapRecord {
   lower: number;
   upper: number;
   minimalGap: number;
+  /** Certified lower bound on the minimal direct gap over the zone (units π/T). */
+  lowerBound: number;
   at: number[];
-  /** The tolerance the gap had to exceed (policy.ts) and the verdict on it. */
+  /** The tolerance the lower bound had to exceed (policy.ts) and the verdict on it. */
   tolerance: number;
   open: boolean;
 }

@@ -106,7 +106,7 @@ export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisR
     bandPath: null,
     gaps: view.gaps.map((g) => {
       const ev = gapEvidence(view, g.label, policy);
-      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
+      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, lowerBound: ev.lowerBound, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
     }),
     bands: view.bands.map((b) => ({ index: b.index, branches: b.branches, gapBelow: b.gapBelow, gapAbove: b.gapAbove, range: [b.range[0], b.range[1]] })),
     spectra,
@@ -136,7 +136,7 @@ export function sheetAnalysis(p: SheetPortrait, policy: VerdictPolicy): Analysis
     bandPath: null,
     gaps: p.gaps.map((g) => {
       const ev = gapEvidence(p, g.label, policy);
-      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
+      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, lowerBound: ev.lowerBound, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
     }),
     bands: p.bands.map((b) => ({ index: b.index, branches: b.branches, gapBelow: b.gapBelow, gapAbove: b.gapAbove, range: [b.range[0], b.range[1]] })),
     spectra,

@@ -9,10 +9,20 @@ import type { IntegerEstimate } from '../../numerics/certificates.ts';
 export interface GapEvidence {
   /** Gap label (units π/T). */
   gap: number;
-  /** Smallest direct gap found (units π/T) and where (reduced momenta). */
+  /** Smallest direct gap found by refinement (units π/T) and where (reduced momenta). */
   minimalGap: number;
   at: number[];
-  /** The tolerance it had to exceed (see policy.ts), and whether it did. */
+  /**
+   * Certified lower bound on the minimal direct gap over the whole zone (units π/T;
+   * 0 when none was shown), the Floquet operators it took, and its outcome:
+   * 'above' the tolerance, a sample 'below' it, or 'undecided' (budget spent).
+   */
+  lowerBound: number;
+  bound: 'above' | 'below' | 'undecided' | 'none';
+  evaluations: number;
+  /** True when the refined gap is below 1 % of the adjacent bandwidth: the point sits at or near a phase transition. */
+  nearTransition: boolean;
+  /** The tolerance it had to exceed (see policy.ts), and whether the lower bound did. */
   tolerance: number;
   open: boolean;
 }

@@ -37,6 +37,7 @@ export function chainOptions(request: AnalysisRequest): ChainAnalysisOptions {
   // Sweeps map bulk quantities only: no open chain, so no end modes and no bulk–end relations there.
   if (request.skip.has('edges')) options.run = { openChain: false };
   if (hints?.kGrid?.[0] !== undefined) options.gapGrid = hints.kGrid[0];
+  if (hints?.tolerances?.gap !== undefined) options.gapTolerance = hints.tolerances.gap;
   const derived = Math.min(
     verdictPropagatorTolerance(hints?.tolerances?.gap ?? DEFAULT_GAP_TOLERANCE, hints?.tolerances?.integer ?? DEFAULT_CHAIN_INTEGER_TOLERANCE),
     CHAIN_SYMMETRY_PROPAGATOR_TOLERANCE,
@@ -98,10 +99,10 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     momentumAtMinimum: [g.momentumAtMinimum],
     open: g.open,
     arcWidth: g.arcWidth,
+    ...(g.certified ? { certified: g.certified } : {}),
   }));
-  // Band velocity per unit of reduced momentum (2π per radian of k); read by the gap tolerance while a gap is open.
-  const open = p.gaps.filter((g) => g.open && g.clearance > 0);
-  const velocity = open.length > 0 ? 2 * Math.PI * Math.max(p.velocity, ...open.map((g) => g.clearance)) : undefined;
+  // Width of each of the bands between the two gaps (two bands share what the gap arcs leave of the circle).
+  const bandwidth = Math.max(0, (2 - p.gaps.reduce((a, g) => a + g.arcWidth, 0)) / 2);
   const invariants: ChainInvariant[] = [];
   const chiralSymmetry = symmetryEntries(p.symmetries, p.chiral?.source === 'declared' ? ['chiral'] : ['time-reversal', 'particle-hole']);
   if (p.chiral?.status === 'computed') {
@@ -150,7 +151,7 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     symmetry: symmetryEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']),
     consistency: p.consistency,
     propagatorAccuracy: p.propagatorAccuracy,
-    ...(velocity !== undefined ? { velocity } : {}),
+    bandwidth,
     timings: p.timings,
   };
 }

@@ -14,7 +14,7 @@ import { gapKey } from './claims.ts';
 import { emptyCertificate } from './certificate.ts';
 import type { Certificate } from './certificate.ts';
 import type { CountObservation, SettledInteger } from './evidence.ts';
-import { countAtTwoSizes, countEvidence, judgeEstimate } from './evidence.ts';
+import { countAtTwoSizes, countEvidence, gapReason, judgeEstimate } from './evidence.ts';
 import { formatQuasienergy } from './format.ts';
 import type { VerdictPolicy } from './policy.ts';
 import type { PortraitEntry } from './sheet-verdicts.ts';
@@ -148,7 +148,7 @@ function invariantEvidence(view: ChainView, label: number, policy: VerdictPolicy
     else {
       const g = gapEvidence(view, label, policy);
       certificate.gaps = [g];
-      if (!g.open) reasons.push(`the gap at ${formatQuasienergy(g.gap)} is ${g.minimalGap.toPrecision(3)} π/T, not above the tolerance ${g.tolerance.toPrecision(3)} π/T`);
+      if (!g.open) reasons.push(gapReason(g));
       if (basis.length === 0) reasons.push('no chiral or particle–hole symmetry is declared (claims.symmetries), and without one a chain has no invariant');
       else if (g.open) reasons.push(`the engine computed no invariant${view.invariantNote ? `: ${view.invariantNote}` : ''}`);
     }

@@ -64,7 +64,7 @@ export interface ChainView {
   propagatorAccuracy: number | null;
   /** The engine's gap tolerance (units π/T). */
   gapTolerance?: number;
-  /** Largest band velocity (units π/T per unit of reduced momentum). */
-  velocity?: number;
+  /** Width of the bands next to the gaps (units π/T), to tell a gap small against it. */
+  bandwidth?: number;
   timings: Record<string, number>;
 }

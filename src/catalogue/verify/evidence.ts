@@ -1,8 +1,8 @@
 /**
  * Whether a computed integer is settled: strong enough evidence to confirm or
  * contradict a claim. An integer is settled when
- *   1. every gap it depends on is open by more than the gap tolerance
- *      (policy.ts: max(floor, safety · band velocity · grid spacing));
+ *   1. every gap it depends on is open: the certified lower bound of its
+ *      minimal direct gap exceeds the gap tolerance (policy.ts);
  *   2. its residual |x − round x| is within tolerance and the engine marked it converged;
  *   3. the last two refinement steps round to the same integer (when required;
  *      a Z₂ index decided by a sign with a margin has no refinement and the
@@ -14,7 +14,8 @@ import type { IntegerEstimate } from '../../numerics/certificates.ts';
 import type { Certificate, GapEvidence } from './certificate.ts';
 import { certificateFromEstimate } from './certificate.ts';
 import type { VerdictPolicy } from './policy.ts';
-import { formatQuasienergy } from './format.ts';
+import { formatNumber, formatQuasienergy } from './format.ts';
+import { GAP_TOLERANCE_LIMIT } from './policy.ts';
 
 export interface SettledInteger {
   /** round(raw) when settled, else null. */
@@ -24,6 +25,31 @@ export interface SettledInteger {
   settled: boolean;
   reasons: string[];
   certificate: Certificate;
+}
+
+/**
+ * Why a gap a number depends on does not count as open, and what would settle
+ * it: a sample below the tolerance (at a phase transition when the gap is small
+ * against the bandwidth, else the tolerance to lower), or a lower bound the
+ * evaluation budget could not push above the tolerance.
+ */
+export function gapReason(g: GapEvidence, what = 'the gap'): string {
+  const at = g.at.length > 0 ? ` at s = (${g.at.map((s) => s.toFixed(3)).join(', ')})` : '';
+  const name = `${what} at ${formatQuasienergy(g.gap)}`;
+  const tol = `the tolerance ${formatNumber(g.tolerance)} π/T`;
+  if (g.bound === 'none' && g.minimalGap === 0 && g.at.length === 0) return `${name} was not found`;
+  if (g.bound === 'undecided') {
+    return (
+      `${name} lies between ${formatNumber(g.lowerBound)} and ${formatNumber(g.minimalGap)} π/T (certified lower bound after ${g.evaluations} evaluations), ` +
+      `not shown above ${tol}; to settle, lower numerics.tolerances.gap to ${formatNumber(Math.max(g.lowerBound, GAP_TOLERANCE_LIMIT))} π/T or below`
+    );
+  }
+  if (g.bound === 'none' && g.minimalGap > g.tolerance) return `${name} is ${formatNumber(g.minimalGap)} π/T${at} but has no certified lower bound`;
+  const measured = `${name} is ${formatNumber(g.minimalGap)} π/T${at}, not above ${tol}`;
+  if (g.nearTransition || g.minimalGap <= GAP_TOLERANCE_LIMIT) {
+    return `${measured}: it is small against the bandwidth, so the model sits at or near a phase transition; to settle, move the parameter point away from it`;
+  }
+  return `${measured}; to settle, if it is a genuine gap, lower numerics.tolerances.gap below ${formatNumber(g.minimalGap)} π/T (hard limit ${formatNumber(GAP_TOLERANCE_LIMIT)})`;
 }
 
 export function judgeEstimate(
@@ -52,13 +78,7 @@ export function judgeEstimate(
   certificate.gaps = gaps;
   certificate.symmetry = symmetry;
   const reasons: string[] = [];
-  for (const gap of gaps) {
-    if (!gap.open) {
-      reasons.push(
-        `the gap at ${formatQuasienergy(gap.gap)} is ${gap.minimalGap.toPrecision(3)} π/T at s = (${gap.at.map((s) => s.toFixed(3)).join(', ')}), not above the tolerance ${gap.tolerance.toPrecision(3)} π/T`,
-      );
-    }
-  }
+  for (const gap of gaps) if (!gap.open) reasons.push(gapReason(gap));
   const tolerance = Number.isFinite(estimate.tolerance) && estimate.tolerance > 0 ? estimate.tolerance : policy.defaultResidualTolerance;
   if (!Number.isFinite(estimate.raw)) reasons.push('the computed value is not a finite number');
   else if (estimate.residual > tolerance) {
@@ -114,9 +134,7 @@ export function countEvidence(stage: string, observation: CountObservation | str
     certificate.notes.push(observation.note);
     if (!observation.settled || observation.count === null) reasons.push(observation.reason ?? unsettledReason);
   }
-  for (const g of gaps) {
-    if (!g.open) reasons.push(`the bulk gap at ${formatQuasienergy(g.gap)} is ${g.minimalGap.toPrecision(3)} π/T, not above the tolerance ${g.tolerance.toPrecision(3)} π/T`);
-  }
+  for (const g of gaps) if (!g.open) reasons.push(gapReason(g, 'the bulk gap'));
   certificate.notes.push(...reasons);
   const nearest = typeof observation === 'string' ? null : observation.count;
   if (nearest !== null) certificate.raw = nearest;

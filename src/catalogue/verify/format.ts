@@ -7,3 +7,53 @@ export function formatQuasienergy(label: number): string {
   if (Math.abs(Math.abs(x) - 1) < 1e-12) return 'ε = π/T';
   return `ε = ${Number(x.toPrecision(4))} π/T`;
 }
+
+/** Drops trailing zeros of a fixed or exponential decimal ("1.50e-6" → "1.5e-6", "0.0450" → "0.045"). */
+function trimZeros(text: string): string {
+  const [mantissa, exponent] = text.split('e');
+  const trimmed = mantissa.includes('.') ? mantissa.replace(/0+$/, '').replace(/\.$/, '') : mantissa;
+  return exponent === undefined ? trimmed : `${trimmed}e${exponent.replace(/^\+/, '')}`;
+}
+
+/**
+ * The one format for tolerances, residuals, gaps and bounds: three significant
+ * digits, plain between 10⁻² and 10⁴, else in exponent form ("1e-6", "3.2e-4",
+ * "0.045", "12.5"); never a signed zero.
+ */
+export function formatNumber(x: number): string {
+  if (Number.isNaN(x)) return 'NaN';
+  if (!Number.isFinite(x)) return x > 0 ? '∞' : '−∞';
+  if (x === 0) return '0';
+  const a = Math.abs(x);
+  return trimZeros(a >= 1e-2 && a < 1e4 ? x.toPrecision(3) : x.toExponential(2));
+}
+
+/**
+ * A computed value that should be an integer, with enough digits to see its
+ * distance from the integer: seven decimals ("0.9999931", "-1.9999998"); a
+ * value within 5·10⁻⁸ of zero is written in exponent form ("-4.3e-8"), never
+ * as "-0.0000000".
+ */
+export function formatRawValue(x: number | null): string {
+  if (x === null || Number.isNaN(x)) return '—';
+  if (!Number.isFinite(x)) return formatNumber(x);
+  const fixed = x.toFixed(7);
+  if (/^-?0\.0+$/.test(fixed)) return x === 0 ? '0' : formatNumber(x);
+  return fixed;
+}
+
+/** A grid as people write it: [24, 24] → "24²", [24, 24, 96] → "24²×96", [128] → "128". */
+export function formatGrid(grid: readonly number[]): string {
+  if (grid.length >= 2 && grid[0] === grid[1]) return [`${grid[0]}²`, ...grid.slice(2).map(String)].join('×');
+  return grid.map(String).join('×');
+}
+
+/** One refinement level as one item: "24² → 0.9999931" (a label, when given, replaces the grid). */
+export function formatRefinementStep(step: { grid: readonly number[]; value: number | null; label?: string }): string {
+  return `${step.label ?? formatGrid(step.grid)} → ${formatRawValue(step.value)}`;
+}
+
+/** A refinement history, coarsest first, one level per item: "24² → 0.9999931, 48² → 0.9999999". */
+export function formatRefinement(steps: readonly { grid: readonly number[]; value: number | null; label?: string }[]): string {
+  return steps.map(formatRefinementStep).join(', ');
+}

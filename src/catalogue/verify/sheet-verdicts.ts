@@ -89,23 +89,44 @@ function adjacentWidth(bands: BandGroupReport[], label: number): number {
   return width;
 }
 
-/** The engine's own gap tolerance (model numerics.tolerances.gap) raises the policy floor, never lowers it. */
+/** Below this fraction of the adjacent bandwidth a gap is "small": the point sits at or near a phase transition. */
+export const TRANSITION_FRACTION = 0.01;
+
+/** The engine's results a gap verdict reads. */
 export interface GapSource {
   gaps: GapReport[];
   bands: BandGroupReport[];
   grid: number[];
+  /** The engine's gap tolerance (the model's numerics.tolerances.gap, else the engine default), units π/T. */
   gapTolerance?: number;
-  /** Largest band velocity (units π/T per unit of reduced momentum) when the engine reports it; else π × band width is used. */
-  velocity?: number;
+  /** Width of the quasienergy bands next to a gap (units π/T) when the source has no band groups (chains). */
+  bandwidth?: number;
 }
 
+/**
+ * A gap is open for verdicts when the engine's certified lower bound of its
+ * minimal direct gap exceeds the tolerance (policy.ts, gapTolerance); the
+ * refined minimum and the bound both go into the certificate. A gap without a
+ * certified bound is never open.
+ */
 export function gapEvidence(portrait: GapSource, label: number, policy: VerdictPolicy): GapEvidence {
-  const floor = Math.max(policy.gapFloor, portrait.gapTolerance ?? 0);
+  const tolerance = gapTolerance(policy, portrait.gapTolerance);
   const gap = findGap(portrait.gaps, label);
-  if (!gap) return { gap: label, minimalGap: 0, at: [], tolerance: floor, open: false };
-  const width = portrait.velocity !== undefined ? portrait.velocity / Math.PI : adjacentWidth(portrait.bands, gap.label);
-  const tolerance = gapTolerance({ ...policy, gapFloor: floor }, width, portrait.grid);
-  return { gap: gap.label, minimalGap: gap.minimalGap, at: [...gap.momentumAtMinimum], tolerance, open: gap.open && gap.minimalGap > tolerance };
+  if (!gap) return { gap: label, minimalGap: 0, at: [], lowerBound: 0, bound: 'none', evaluations: 0, nearTransition: false, tolerance, open: false };
+  const c = gap.certified;
+  const lowerBound = c ? c.lower : 0;
+  const bandwidth = portrait.bandwidth ?? adjacentWidth(portrait.bands, gap.label);
+  return {
+    gap: gap.label,
+    minimalGap: gap.minimalGap,
+    at: [...gap.momentumAtMinimum],
+    lowerBound,
+    bound: c ? c.status : 'none',
+    evaluations: c ? c.evaluations : 0,
+    nearTransition: bandwidth > 0 && gap.minimalGap < TRANSITION_FRACTION * bandwidth,
+    tolerance,
+    open: gap.open && c !== undefined && lowerBound > tolerance,
+  };
 }
 
 /** Band groups ordered upward from the gap `cut` (following gapAbove links), or null if the cut is not a gap edge. */

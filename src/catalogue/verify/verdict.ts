@@ -113,7 +113,8 @@ function unsettledHint(reasons: string[]): string | null {
   if (/no open gap contains/.test(text)) return 'name a gap by a quasienergy inside it (units π/T): pick one of the open gaps listed';
   if (/no chiral or particle–hole symmetry is declared/.test(text)) return 'declare the symmetry the invariant rests on in claims.symmetries (chiral operator with symmetricTimes, or particleHole)';
   if (/at (ribbon width|chain length) \d+ the count|count changed with the/.test(text)) return 'the count depends on the system size: raise numerics.ribbon.width or numerics.chainLength well beyond the decay length';
-  if (/gap at/.test(text)) return 'the model may sit at or near a phase transition; move the parameter point away from it or raise numerics.kGrid';
+  if (/phase transition/.test(text)) return 'the model sits at or near a phase transition: move the parameter point away from it';
+  if (/lower numerics\.tolerances\.gap/.test(text)) return 'lower numerics.tolerances.gap (units π/T, hard limit 1e-5) to the value the message names';
   if (/ribbon/.test(text)) return 'widen the ribbon (numerics.ribbon.width) well beyond the edge-state decay length';
   if (/refinement|tolerance|single grid/.test(text)) return 'raise numerics.kGrid or numerics.timeSlices so that refinement can settle the integer';
   return null;

@@ -36,6 +36,8 @@ export interface ChainAnalysisOptions {
   symmetryTolerance?: number;
   /** Uniform k grid of the gap scan (default 128). */
   gapGrid?: number;
+  /** Gap tolerance (units π/T): a gap is open when the certified lower bound of its minimal direct gap exceeds it (default 1e-3). */
+  gapTolerance?: number;
   propagator?: PropagatorOptions;
   /** Stages to run (default all): without the open chain, no end modes and no bulk–end relations are reported. */
   run?: { openChain?: boolean };
@@ -53,7 +55,7 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   const tol = options.symmetryTolerance ?? 1e-10;
   const propagator = options.propagator;
   const cache = new FloquetCache(drive, propagator);
-  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator, cache }));
+  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator, cache, certifyAbove: options.gapTolerance }));
 
   const residuals: SymmetryResidual[] = timed('symmetries', () => {
     const out: SymmetryResidual[] = [];

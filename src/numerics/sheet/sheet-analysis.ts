@@ -131,6 +131,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
     momentumAtMinimum: g.momentumAtMinimum,
     open: g.open,
     arcWidth: g.arcWidth,
+    ...(g.certified ? { certified: g.certified } : {}),
   }));
   const ordered = orderFromCut(detected, options.cut ?? 1);
   const groups = bandGroups(data, ordered, tolerance);

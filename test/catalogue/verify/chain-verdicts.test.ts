@@ -10,10 +10,10 @@ import { DEFAULT_POLICY } from '../../../src/catalogue/verify/policy.ts';
 import { classifyChain } from '../../../src/catalogue/verify/anomalous.ts';
 import type { NormalizedClaim } from '../../../src/catalogue/verify/claims.ts';
 import { integerEstimate } from '../../../src/numerics/certificates.ts';
-import { estimate } from './hand-portraits.ts';
+import { certified, estimate } from './hand-portraits.ts';
 
 const gap = (label: number, width: number) => ({
-  label, lower: label - width / 2, upper: label === 1 ? -1 + width / 2 : label + width / 2, minimalGap: width, momentumAtMinimum: [0.5], open: width > 1e-3, arcWidth: width,
+  label, lower: label - width / 2, upper: label === 1 ? -1 + width / 2 : label + width / 2, minimalGap: width, momentumAtMinimum: [0.5], open: 0.8 * width > 1e-3, arcWidth: width, certified: certified(width),
 });
 const chiral = [
   { name: 'chiral symmetry of H(t) about t₀ = 0.25', residual: 0, tolerance: 1e-10 },
@@ -45,7 +45,7 @@ function chainView(nu1: number, nu2: number, o: { piGap?: number; frameResidual?
     consistency: [],
     propagatorAccuracy: 0,
     timings: {},
-    velocity: 2,
+    bandwidth: 0.6,
   };
 }
 

@@ -83,14 +83,18 @@ describe('verification of purpose-built models', () => {
     expect(r.analysis!.gaps.some((g) => g.label === 0 && g.open)).toBe(false);
   });
 
-  it('does not confirm a near-critical model by luck (m = 2.03: gap below band velocity × grid spacing)', () => {
+  it('settles a near-critical model on the certified bound of its gap (m = 2.03: gap below band velocity × grid spacing)', () => {
     const r = record('qwz-near-critical');
     const gap0 = r.analysis!.gaps.find((g) => g.label === 0)!;
     // 2·|m − 2|·T/π = 2·0.03·0.5/π ≈ 0.00955 π/T, relative tolerance 1e-6.
     expect(Math.abs(gap0.minimalGap - (2 * 0.03 * 0.5) / Math.PI)).toBeLessThan(1e-6 * gap0.minimalGap);
-    expect(gap0.minimalGap).toBeLessThan(gap0.tolerance);
-    expect(r.claims.map((c) => c.outcome)).toEqual(['unsettled', 'unsettled']);
-    expect(r.status).toBe('unsettled');
+    // Band velocity × grid spacing (½·π·width/24 with bands about 2.2 π/T·0.5 wide) would have refused it; the bound does not.
+    expect(gap0.lowerBound).toBeGreaterThan(gap0.tolerance);
+    expect(gap0.lowerBound).toBeLessThanOrEqual(gap0.minimalGap);
+    expect(gap0.open).toBe(true);
+    // |m| > 2: both bands trivial (Qi, Wu, Zhang, PRB 74, 085308 (2006)), as claimed.
+    expect(r.claims.map((c) => c.outcome)).toEqual(['confirmed', 'confirmed']);
+    expect(r.status).toBe('verified');
   });
 
   it('confirms the two-step chain and flags it anomalous (modes at π/T)', () => {
@@ -153,7 +157,7 @@ describe('verification of purpose-built models', () => {
     expect(r.status).toBe('invalid');
     expect(r.diagnostics[0]).toMatchObject({ file: 'test/fixtures/verification/broken-file.json', line: 10, pointer: '/claims/gaps/0/windnig' });
     expect(report.records).toHaveLength(9);
-    expect(report.summary.counts).toEqual({ verified: 2, disputed: 4, unsettled: 2, 'portrait-only': 0, invalid: 1, failed: 0 });
+    expect(report.summary.counts).toEqual({ verified: 3, disputed: 4, unsettled: 1, 'portrait-only': 0, invalid: 1, failed: 0 });
   });
 
   it('writes records and the summary that validate against schemas/report.schema.json', () => {
