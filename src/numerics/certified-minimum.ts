@@ -26,6 +26,7 @@
  */
 
 import { gridMomentum } from './quasienergy-bands.ts';
+import { BinaryHeap } from './binary-heap.ts';
 
 export interface CellValue {
   /** f at the cell centre. */
@@ -81,51 +82,6 @@ interface Cell {
   bound: number;
 }
 
-/** Binary heap on cell bounds, smallest first. */
-class CellHeap {
-  private readonly items: Cell[] = [];
-
-  get size(): number {
-    return this.items.length;
-  }
-
-  peek(): Cell | undefined {
-    return this.items[0];
-  }
-
-  push(cell: Cell): void {
-    const a = this.items;
-    a.push(cell);
-    let i = a.length - 1;
-    while (i > 0) {
-      const parent = (i - 1) >> 1;
-      if (a[parent].bound <= a[i].bound) break;
-      [a[parent], a[i]] = [a[i], a[parent]];
-      i = parent;
-    }
-  }
-
-  pop(): Cell | undefined {
-    const a = this.items;
-    if (a.length === 0) return undefined;
-    const top = a[0];
-    const last = a.pop()!;
-    if (a.length > 0) {
-      a[0] = last;
-      let i = 0;
-      for (;;) {
-        const l = 2 * i + 1, r = l + 1;
-        let m = i;
-        if (l < a.length && a[l].bound < a[m].bound) m = l;
-        if (r < a.length && a[r].bound < a[m].bound) m = r;
-        if (m === i) break;
-        [a[m], a[i]] = [a[i], a[m]];
-        i = m;
-      }
-    }
-    return top;
-  }
-}
 
 export function certifiedMinimum(options: CertifiedMinimumOptions): CertifiedMinimum {
   const { evaluate, lipschitz, grid, initial, decisionLevel } = options;
@@ -159,7 +115,7 @@ export function certifiedMinimum(options: CertifiedMinimumOptions): CertifiedMin
   };
 
   if (options.knownBest !== undefined) record({ value: options.knownBest.value }, options.knownBest.at);
-  const heap = new CellHeap();
+  const heap = new BinaryHeap<Cell>((cell) => cell.bound);
   const firstHalf = grid.map((n) => 0.5 / n);
   initial.forEach((value, i) => {
     const centre = gridMomentum(grid, i);

@@ -76,11 +76,32 @@ export interface BandGroupReport {
   chern?: ChernEstimate;
 }
 
+/** How a gap winding number was integrated (sheet/winding/gap-winding.ts). */
+export interface WindingQuadrature {
+  /** Winding densities evaluated (momenta, each integrated over the time loop), time-rule checks included. */
+  evaluations: number;
+  /** Cells of the final adaptive mesh, and of the graded first mesh. */
+  cells: number;
+  meshCells: number;
+  /** Summed |Kronrod − Gauss| estimate of the momentum quadrature (units of W). */
+  errorEstimate: number;
+  /** The value before rounding. */
+  raw: number;
+  /** Gauss–Legendre nodes over the whole loop, and the largest relative change of the density when one more node per piece was added. */
+  timeNodes: number;
+  timeRuleChange: number;
+  /** Smallest distance from the cut to the spectrum met by the mesh (units π/T), and where. */
+  minimalDistance: number;
+  momentumAtMinimum: [number, number];
+}
+
 export interface WindingReport {
   /** Gap label (units π/T). */
   gap: number;
   /** Rudner–Lindner–Berg–Levin winding number W[U_ε]. */
   winding: IntegerEstimate;
+  /** Present when the integral was computed (the gap open at the cut). */
+  quadrature?: WindingQuadrature;
 }
 
 /** A crossing of a gap by an edge-localised ribbon state. */

@@ -10,14 +10,15 @@ import { describe, expect, it } from 'vitest';
 import type { LatticeDrive } from '../../../../src/numerics/evolution/drive.ts';
 import type { WindingReport } from '../../../../src/numerics/portrait.ts';
 import { gapWindingNumbers } from '../../../../src/numerics/sheet/winding/gap-winding.ts';
-import { centralDifference, gaussLegendre, gradedAxis } from '../../../../src/numerics/sheet/winding/grid.ts';
+import { gaussKronrod15, gaussLegendre } from '../../../../src/numerics/sheet/winding/quadrature-rules.ts';
 import { generatorAt, generatorSeries, loopFloquetOperator, magnusSliceCounts, pieceGenerator, planLoop } from '../../../../src/numerics/sheet/winding/time-loop.ts';
 import { distance, zeros } from '../../../../src/numerics/linalg/complex-matrix.ts';
 import { floquetOperator } from '../../../../src/numerics/evolution/propagator.ts';
 import { circularHoneycombDrive } from '../../../support/drives/honeycomb.ts';
 import { randomUnitary, seededRandom, unitaryWithPhases } from '../../../support/random.ts';
 import { unitaryEigenTwo } from '../../../../src/numerics/sheet/winding/two-band-kernel.ts';
-import { windingOnGrid } from '../../../../src/numerics/sheet/winding/integral.ts';
+import { WindingDensity } from '../../../../src/numerics/sheet/winding/density.ts';
+import { TwoBandWindingDensity } from '../../../../src/numerics/sheet/winding/two-band-density.ts';
 import { prepareBloch } from '../../../../src/numerics/evolution/bloch.ts';
 import { FloquetSampler } from '../../../../src/numerics/quasienergy-bands.ts';
 import { chernNumber } from '../../../../src/numerics/sheet/chern-fhs.ts';
@@ -25,7 +26,7 @@ import { checkerboardDrive } from '../../../support/drives/checkerboard.ts';
 import { qwzBloch, qwzDrive } from '../../../support/drives/qwz.ts';
 
 /** Default acceptance of the engine; the checks below use it as their tolerance on |W − integer|. */
-const TOL = 1e-3;
+const TOL = 1e-6;
 
 function byGap(reports: WindingReport[], gap: number) {
   const r = reports.find((x) => x.gap === gap);
@@ -109,23 +110,25 @@ describe('discretisation helpers', () => {
     }
   });
 
-  it('central-difference weights match the classical tables (Fornberg 1988; common practice) to 1e-15', () => {
-    const expected: Record<number, number[]> = { 1: [1 / 2], 2: [2 / 3, -1 / 12], 4: [4 / 5, -1 / 5, 4 / 105, -1 / 280] };
-    for (const [r, c] of Object.entries(expected)) {
-      const got = centralDifference(Number(r));
-      c.forEach((x, j) => expect(Math.abs(got[j] - x)).toBeLessThanOrEqual(1e-15));
+  it('Gauss–Kronrod 7/15: Kronrod exact to degree 22, Gauss to degree 13, Gauss nodes nested (QUADPACK qk15 values, checked by exactness)', () => {
+    const rule = gaussKronrod15();
+    const gl = gaussLegendre(7);
+    rule.gaussIndices.forEach((idx, g) => {
+      expect(Math.abs(rule.nodes[idx] - gl.nodes[g])).toBeLessThanOrEqual(1e-15);
+      expect(Math.abs(rule.gaussWeights[g] - gl.weights[g])).toBeLessThanOrEqual(1e-15);
+    });
+    for (let k = 0; k <= 24; k++) {
+      const exact = k % 2 === 1 ? 0 : 2 / (k + 1);
+      let kronrod = 0, gauss = 0;
+      rule.nodes.forEach((x, i) => (kronrod += rule.kronrodWeights[i] * x ** k));
+      rule.gaussIndices.forEach((idx, g) => (gauss += rule.gaussWeights[g] * rule.nodes[idx] ** k));
+      if (k <= 22) expect(Math.abs(kronrod - exact), `Kronrod, x^${k}`).toBeLessThanOrEqual(2e-15);
+      if (k <= 13) expect(Math.abs(gauss - exact), `Gauss, x^${k}`).toBeLessThanOrEqual(2e-15);
     }
-  });
-
-  it('a graded axis is increasing, periodic and crowds its points at the focus', () => {
-    const s = gradedAxis(64, [{ centre: 0.3, width: 1e-3 }]);
-    for (let i = 1; i < s.length; i++) expect(s[i]).toBeGreaterThan(s[i - 1]);
-    expect(s[0]).toBe(0);
-    expect(s[63]).toBeLessThan(1);
-    // With half the points in a wrapped Cauchy of half-width 1e-3, about a quarter of them lie within ±1e-3 of 0.3.
-    const inside = Array.from(s).filter((x) => Math.abs(x - 0.3) <= 1e-3).length;
-    expect(inside).toBeGreaterThanOrEqual(12);
-    expect(inside).toBeLessThanOrEqual(20);
+    // Degree 24 is beyond Kronrod's exactness: the rule must show an error there (it is not a trivially passing table).
+    let k24 = 0;
+    rule.nodes.forEach((x, i) => (k24 += rule.kronrodWeights[i] * x ** 24));
+    expect(Math.abs(k24 - 2 / 25)).toBeGreaterThan(1e-9);
   });
 });
 
@@ -268,11 +271,20 @@ describe('static Qi–Wu–Zhang model run as a drive (Qi, Wu, Zhang, PRB 74, 08
     expectWinding(w, 1, 0);
   });
 
-  it('a single level is never accepted: with maxGrid = initialGrid the report says it did not converge', () => {
-    const w = gapWindingNumbers(qwzDrive(1, period), [0], { initialGrid: 16, maxGrid: 16 });
-    expect(byGap(w, 0).converged).toBe(false);
-    expect(byGap(w, 0).caveat).toMatch(/did not converge/);
-    expect(byGap(w, 0).history).toHaveLength(1);
+  it('a budget too small to reach the tolerance leaves W unconverged and names the setting that settles it', () => {
+    // Near closing the first mesh is graded towards (½, ½); a budget of one more cell than it holds stops the refinement early.
+    const full = byGap(gapWindingNumbers(qwzDrive(1.999, period), [0]), 0);
+    const firstCells = Number(/(\d+) evaluations, (\d+) cells/.exec(full.history[0].label ?? '')?.[2]);
+    const w0 = byGap(gapWindingNumbers(qwzDrive(1.999, period), [0], { evaluations: (firstCells + 2) * 225 }), 0);
+    expect(w0.converged).toBe(false);
+    expect(w0.caveat).toMatch(/^did not converge: the quadrature error estimate [^ ]+ exceeds the tolerance 1e-6 after \d+ evaluations \(the budget\).*; to settle, raise numerics\.windingEvaluations$/);
+    // The history ends with the nested pair on the final cells, Gauss first.
+    expect(w0.history.at(-2)?.label).toMatch(/^7-point Gauss on the final \d+ cells$/);
+    expect(w0.history.at(-1)?.label).toMatch(/^15-point Kronrod on the final \d+ cells/);
+    // A budget below the first mesh computes nothing and says how much is needed.
+    const none = byGap(gapWindingNumbers(qwzDrive(1.999, period), [0], { evaluations: 450 }), 0);
+    expect(none.converged).toBe(false);
+    expect(none.caveat).toMatch(/the integral was not computed.*the first mesh \(\d+ cells, \d+ evaluations\) exceeds the budget of 450 evaluations; to settle, raise numerics\.windingEvaluations to at least \d+/);
   });
 
   it('the same Floquet operator reached through a kick gives the same W (kicks become virtual intervals)', () => {
@@ -400,15 +412,27 @@ describe('two-band kernel', () => {
     }
   });
 
-  it('agrees with the general-size path on the same grid (to 1e-10)', () => {
-    const drive = checkerboardDrive({ hopping: 0.4 * Math.PI, offset: 0.3, stepDuration: 1 });
-    const plan = planLoop(drive, prepareBloch(drive, [0, 0]), []);
-    const axes = [gradedAxis(18, [{ centre: 0.2, width: 0.05 }]), gradedAxis(18, [])] as [Float64Array, Float64Array];
-    const grid = { axes, nodesPerPiece: plan.pieces.map(() => 6), stencilRadius: 3 };
-    const series = generatorSeries(drive, plan);
-    const fast = windingOnGrid(plan, series, [0, 1], grid, 1);
-    const general = windingOnGrid(plan, series, [0, 1], { ...grid, kernel: 'general' }, 1);
-    fast.values.forEach((x, i) => expect(Math.abs(x - general.values[i])).toBeLessThanOrEqual(1e-10));
+  it('the closed-form two-band density agrees with the general-size evaluator (to 1e-10 relative)', () => {
+    for (const drive of [
+      checkerboardDrive({ hopping: 0.4 * Math.PI, offset: 0.3, stepDuration: 1 }),
+      circularHoneycombDrive({ hopping: 1, amplitude: 1, frequency: 4 }),
+    ]) {
+      const plan = planLoop(drive, prepareBloch(drive, [0, 0]), magnusSliceCounts(drive, [[0, 0]], { tolerance: 1e-4 }));
+      const series = generatorSeries(drive, plan);
+      const nodes = plan.pieces.map(() => 3);
+      const general = new WindingDensity(plan, series, [0, 1], nodes), two = new TwoBandWindingDensity(plan, series, [0, 1], nodes);
+      const a = new Float64Array(2), b = new Float64Array(2), im = new Float64Array(2), da = new Float64Array(2), db = new Float64Array(2);
+      const random = seededRandom(31);
+      for (let trial = 0; trial < 4; trial++) {
+        const s = [random(), random()];
+        general.evaluate(s[0], s[1], a, im, da);
+        two.evaluate(s[0], s[1], b, im, db);
+        for (let j = 0; j < 2; j++) {
+          expect(Math.abs(a[j] - b[j])).toBeLessThanOrEqual(1e-10 * (1 + Math.abs(a[j])));
+          expect(Math.abs(da[j] - db[j])).toBeLessThanOrEqual(1e-12);
+        }
+      }
+    }
   });
 });
 
