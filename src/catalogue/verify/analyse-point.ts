@@ -21,8 +21,8 @@ import type { ConsistencyCheck } from '../../numerics/portrait.ts';
 import type { NumericsHints } from '../model-types.generated.ts';
 import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.ts';
 import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
-import { DEFAULT_WINDING_TOLERANCE } from '../../numerics/sheet/winding/gap-winding.ts';
 import { followableGridAdvice } from './grid-advice.ts';
+import { BAND_INTEGER_ACCURACY } from '../../numerics/sheet/sheet-analysis.ts';
 
 export interface PointResult {
   dimension: number;
@@ -116,7 +116,7 @@ export function distrustOnInconsistency(verdicts: Verdict[], entries: PortraitEn
 
 /** Defaults the tolerance hints are compared with (docs/model-format.md, "Numerics hints"). */
 export const TOLERANCE_DEFAULTS = {
-  /** Strictest default integer tolerance: Chern numbers and chain windings (winding numbers of sheets: 1e-3). */
+  /** Default integer tolerance: Chern numbers, gap winding numbers and chain windings (Z₂ indices: 0.01). */
   integer: 1e-6,
   /** Gap tolerance, units π/T. */
   gap: DEFAULT_GAP_TOLERANCE,
@@ -134,13 +134,13 @@ export function loosenedTolerances(hints: NumericsHints | undefined): string[] {
   const notes: string[] = [];
   const g = (x: number) => Number(x.toPrecision(3)).toString();
   if (t.integer !== undefined && t.integer > TOLERANCE_DEFAULTS.integer) {
-    notes.push(`the model loosens numerics.tolerances.integer to ${g(t.integer)} (defaults: 1e-6 for Chern numbers and chain windings, 1e-3 for gap winding numbers)`);
+    notes.push(`the model loosens numerics.tolerances.integer to ${g(t.integer)} (default 1e-6 for Chern numbers, gap winding numbers and chain windings)`);
   }
   if (t.gap !== undefined && t.gap < TOLERANCE_DEFAULTS.gap) {
-    notes.push(`the model loosens numerics.tolerances.gap to ${g(t.gap)} π/T (default ${g(TOLERANCE_DEFAULTS.gap)} π/T; verdicts still require the policy's gap floor)`);
+    notes.push(`the model loosens numerics.tolerances.gap to ${g(t.gap)} π/T (default ${g(TOLERANCE_DEFAULTS.gap)} π/T; hard lower limit 1e-5 π/T)`);
   }
   if (t.propagator !== undefined) {
-    const derived = verdictPropagatorTolerance(t.gap ?? TOLERANCE_DEFAULTS.gap, t.integer ?? DEFAULT_WINDING_TOLERANCE) / Math.PI;
+    const derived = verdictPropagatorTolerance(t.gap ?? TOLERANCE_DEFAULTS.gap, t.integer ?? BAND_INTEGER_ACCURACY) / Math.PI;
     if (t.propagator > derived) notes.push(`the model loosens numerics.tolerances.propagator to ${g(t.propagator)} π/T (derived default ${g(derived)} π/T)`);
   }
   return notes;

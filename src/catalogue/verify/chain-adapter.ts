@@ -38,6 +38,7 @@ export function chainOptions(request: AnalysisRequest): ChainAnalysisOptions {
   if (request.skip.has('edges')) options.run = { openChain: false };
   if (hints?.kGrid?.[0] !== undefined) options.gapGrid = hints.kGrid[0];
   if (hints?.tolerances?.gap !== undefined) options.gapTolerance = hints.tolerances.gap;
+  if (hints?.gapEvaluations !== undefined) options.gapEvaluations = hints.gapEvaluations;
   const derived = Math.min(
     verdictPropagatorTolerance(hints?.tolerances?.gap ?? DEFAULT_GAP_TOLERANCE, hints?.tolerances?.integer ?? DEFAULT_CHAIN_INTEGER_TOLERANCE),
     CHAIN_SYMMETRY_PROPAGATOR_TOLERANCE,

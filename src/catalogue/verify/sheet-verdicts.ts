@@ -14,7 +14,7 @@ import type { NormalizedClaim } from './claims.ts';
 import { gapKey } from './claims.ts';
 import type { CountObservation, SettledInteger } from './evidence.ts';
 import { countAtTwoSizes, countEvidence, judgeEstimate } from './evidence.ts';
-import { formatQuasienergy } from './format.ts';
+import { formatNumber, formatQuasienergy, formatRawValue } from './format.ts';
 import type { VerdictPolicy } from './policy.ts';
 import { gapTolerance } from './policy.ts';
 import type { Alternative, Verdict } from './verdict.ts';
@@ -147,7 +147,15 @@ function windingEvidence(p: SheetPortrait, label: number, policy: VerdictPolicy)
   const gap = findGap(p.gaps, label);
   if (!gap) return missingGap(p, label, 'winding');
   const report = gap ? p.windings.find((w) => sameLabel(w.gap, gap.label)) : undefined;
-  return judgeEstimate(report?.winding, [gapEvidence(p, label, policy)], policy, 'winding');
+  const ev = judgeEstimate(report?.winding, [gapEvidence(p, label, policy)], policy, 'winding');
+  const q = report?.quadrature;
+  if (q) {
+    ev.certificate.notes.push(
+      `adaptive Gauss–Kronrod quadrature: ${q.evaluations} evaluations on ${q.cells} cells (first mesh ${q.meshCells}), error estimate ${formatNumber(q.errorEstimate)}, ` +
+        `raw value ${formatRawValue(q.raw)}; ${q.timeNodes} time nodes over the period (a quarter more per piece changes the density by ${formatNumber(q.timeRuleChange)}, relative)`,
+    );
+  }
+  return ev;
 }
 
 function chernEvidence(p: SheetPortrait, band: BandGroupReport, policy: VerdictPolicy): SettledInteger {

@@ -38,6 +38,8 @@ export interface ChainAnalysisOptions {
   gapGrid?: number;
   /** Gap tolerance (units π/T): a gap is open when the certified lower bound of its minimal direct gap exceeds it (default 1e-3). */
   gapTolerance?: number;
+  /** Most Floquet operators the certified bound of each gap may evaluate (default 20000). */
+  gapEvaluations?: number;
   propagator?: PropagatorOptions;
   /** Stages to run (default all): without the open chain, no end modes and no bulk–end relations are reported. */
   run?: { openChain?: boolean };
@@ -55,7 +57,7 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   const tol = options.symmetryTolerance ?? 1e-10;
   const propagator = options.propagator;
   const cache = new FloquetCache(drive, propagator);
-  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator, cache, certifyAbove: options.gapTolerance }));
+  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator, cache, certifyAbove: options.gapTolerance, certificationBudget: options.gapEvaluations }));
 
   const residuals: SymmetryResidual[] = timed('symmetries', () => {
     const out: SymmetryResidual[] = [];

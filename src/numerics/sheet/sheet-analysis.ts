@@ -28,7 +28,7 @@ import type { EdgeCountOptions } from './edge-modes.ts';
 import { countEdgeModes } from './edge-modes.ts';
 import { ribbonSpectrum } from './ribbon.ts';
 import type { WindingOptions } from './winding/gap-winding.ts';
-import { DEFAULT_WINDING_TOLERANCE, gapWindingNumbers } from './winding/gap-winding.ts';
+import { gapWindingNumbers } from './winding/gap-winding.ts';
 
 export interface SheetRibbonOptions {
   /** Finite directions to cut (default both, [0, 1]). */
@@ -44,8 +44,10 @@ export interface SheetRibbonOptions {
 export interface SheetOptions {
   /** Band grid n1 × n2 (default [24, 24]); the Chern refinement starts at max(n1, n2) unless chern.initialGrid says otherwise. */
   grid?: number[];
-  /** Gap tolerance, units π/T (default 1e-3). */
+  /** Gap tolerance, units π/T (default 1e-3): a gap is open when the certified lower bound of its minimal direct gap exceeds it. */
   gapTolerance?: number;
+  /** Most Floquet operators the certified lower bound of each gap may evaluate (default 20000, gaps.ts). */
+  gapEvaluations?: number;
   /** Claimed gap labels (units π/T): gaps containing one are named by it. */
   labels?: number[];
   /** Band groups are counted upward from the open gap containing this quasienergy (default 1, the gap at π/T). */
@@ -56,10 +58,10 @@ export interface SheetOptions {
   edges?: EdgeCountOptions;
   /**
    * Time integration of time-dependent segments. Without a tolerance, bands
-   * and Chern numbers use verdictPropagatorTolerance(gapTolerance, winding
-   * tolerance), ribbons verdictPropagatorTolerance(gapTolerance, 1/100)
-   * (propagator.ts states the rule); the winding numbers choose their own
-   * unless one is given here.
+   * and Chern numbers use verdictPropagatorTolerance(gapTolerance, integer
+   * accuracy) with the model's integer tolerance, else BAND_INTEGER_ACCURACY,
+   * ribbons verdictPropagatorTolerance(gapTolerance, 1/100) (propagator.ts
+   * states the rule); the winding numbers choose their own unless one is given here.
    */
   propagator?: PropagatorOptions;
   /** Stages to run (all default true). */
@@ -67,6 +69,15 @@ export interface SheetOptions {
 }
 
 export const DEFAULT_SHEET_GRID = [24, 24];
+
+/**
+ * The integer accuracy the band propagator is held to when the model sets no
+ * integer tolerance: eigenvectors then move by at most 10⁻³ of themselves
+ * (propagator.ts, verdictPropagatorTolerance), ample for the Fukui–Hatsugai–Suzuki
+ * links and the gap bounds. The gap winding numbers integrate their own loop
+ * (winding/time-loop.ts) and are not bound by it.
+ */
+export const BAND_INTEGER_ACCURACY = 1e-3;
 
 /**
  * Sign σ with count(edge) = σ · W for a ribbon finite along lattice vector
@@ -110,7 +121,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   const run = { chern: true, winding: true, edges: true, ...options.run };
   const tolerance = options.gapTolerance ?? DEFAULT_GAP_TOLERANCE;
   const grid = options.grid ?? DEFAULT_SHEET_GRID;
-  const integerTolerance = options.winding?.tolerance ?? DEFAULT_WINDING_TOLERANCE;
+  const integerTolerance = options.winding?.tolerance ?? BAND_INTEGER_ACCURACY;
   const propagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, integerTolerance) };
   // Edge counts are counts, not residual-tested integers: only the gap part of the rule applies to ribbons.
   const ribbonPropagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, 0.01) };
@@ -122,7 +133,11 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   timings.bands = clock() - t;
 
   t = clock();
-  const detected: DetectedGap[] = findGaps(sampler, data, { gapTolerance: tolerance, labels: options.labels });
+  const detected: DetectedGap[] = findGaps(sampler, data, {
+    gapTolerance: tolerance,
+    labels: options.labels,
+    ...(options.gapEvaluations !== undefined ? { certificationBudget: options.gapEvaluations } : {}),
+  });
   const gaps: GapReport[] = detected.map((g) => ({
     label: g.label,
     lower: g.lower,
