@@ -23,6 +23,7 @@ import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.
 import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
 import { followableGridAdvice } from './grid-advice.ts';
 import { BAND_INTEGER_ACCURACY } from '../../numerics/sheet/sheet-analysis.ts';
+import { formatNumber } from './format.ts';
 
 export interface PointResult {
   dimension: number;
@@ -132,7 +133,7 @@ export function loosenedTolerances(hints: NumericsHints | undefined): string[] {
   const t = hints?.tolerances;
   if (!t) return [];
   const notes: string[] = [];
-  const g = (x: number) => Number(x.toPrecision(3)).toString();
+  const g = formatNumber;
   if (t.integer !== undefined && t.integer > TOLERANCE_DEFAULTS.integer) {
     notes.push(`the model loosens numerics.tolerances.integer to ${g(t.integer)} (default 1e-6 for Chern numbers, gap winding numbers and chain windings)`);
   }

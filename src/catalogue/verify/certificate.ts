@@ -35,8 +35,8 @@ export interface Certificate {
   /** |raw − round raw| and the tolerance it was held to. */
   residual: number | null;
   residualTolerance: number | null;
-  /** Grids and values of successive refinements, coarsest first. */
-  refinement: { grid: number[]; value: number }[];
+  /** Grids and values of successive refinements, coarsest first; a label says what a step was when the grid does not. */
+  refinement: { grid: number[]; value: number; label?: string }[];
   /** Gaps the number depends on. */
   gaps: GapEvidence[];
   /** Symmetry residuals (e.g. ‖ΓUΓ − U†‖) with their tolerance. */
@@ -57,7 +57,7 @@ export function certificateFromEstimate(estimate: IntegerEstimate, stage: string
     raw: estimate.raw,
     residual: estimate.residual,
     residualTolerance: estimate.tolerance,
-    refinement: estimate.history.map((step) => ({ grid: [...step.grid], value: step.value })),
+    refinement: estimate.history.map((step) => ({ grid: [...step.grid], value: step.value, ...(step.label !== undefined ? { label: step.label } : {}) })),
     gaps: [],
     symmetry: [],
     stage,

@@ -61,6 +61,9 @@ export function judgeEstimate(
   signDecided = false,
 ): SettledInteger {
   if (!estimate) {
+    // A quantity of a closed gap is not computed at all: the gap is the reason.
+    const closed = gaps.filter((g) => !g.open).map((g) => gapReason(g));
+    const reasons = closed.length > 0 ? closed : ['not computed by the engine'];
     const certificate: Certificate = {
       grid: [],
       raw: null,
@@ -70,9 +73,9 @@ export function judgeEstimate(
       gaps,
       symmetry,
       stage,
-      notes: ['the engine did not compute this quantity'],
+      notes: closed.length > 0 ? [...closed] : ['the engine did not compute this quantity'],
     };
-    return { value: null, nearest: null, settled: false, reasons: ['not computed by the engine'], certificate };
+    return { value: null, nearest: null, settled: false, reasons, certificate };
   }
   const certificate = certificateFromEstimate(estimate, stage);
   certificate.gaps = gaps;

@@ -115,7 +115,9 @@ export function gapEvidence(portrait: GapSource, label: number, policy: VerdictP
   if (!gap) return { gap: label, minimalGap: 0, at: [], lowerBound: 0, bound: 'none', evaluations: 0, nearTransition: false, tolerance, open: false };
   const c = gap.certified;
   const lowerBound = c ? c.lower : 0;
-  const bandwidth = portrait.bandwidth ?? adjacentWidth(portrait.bands, gap.label);
+  // A gap that is not open has no band groups beside it: the group it lies in stands for its bands.
+  const around = portrait.bands.filter((b) => bandContains(b, gap.label)).map((b) => rangeWidth(b.range));
+  const bandwidth = portrait.bandwidth ?? Math.max(adjacentWidth(portrait.bands, gap.label), ...around);
   return {
     gap: gap.label,
     minimalGap: gap.minimalGap,
