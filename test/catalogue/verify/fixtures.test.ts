@@ -24,19 +24,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { verifyCatalogue, type CatalogueReport } from '../../../src/catalogue/verify/catalogue.ts';
 import { reportProblems } from '../../../src/catalogue/records/report-validation.ts';
 import { canonicalJson } from '../../../src/catalogue/records/canonical-json.ts';
-import type { ModelRecord } from '../../../src/catalogue/records/model-record.ts';
+import { recordLookup } from './record-lookup.ts';
 
 let report: CatalogueReport;
-const record = (id: string): ModelRecord => {
-  const r = report.records.find((x) => x.id === id);
-  if (!r) throw new Error(`no record for ${id}`);
-  return r;
-};
-const verdict = (id: string, claim: string) => {
-  const v = record(id).claims.find((c) => c.claim === claim);
-  if (!v) throw new Error(`${id} has no verdict for ${claim}: ${record(id).claims.map((c) => c.claim).join(', ')}`);
-  return v;
-};
+const { record, verdict } = recordLookup(() => report);
 
 beforeAll(async () => {
   report = await verifyCatalogue(['test/fixtures/verification'], { workers: 0, cache: false });
