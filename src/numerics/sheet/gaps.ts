@@ -52,6 +52,8 @@ export interface GapOptions {
   refinedMinima?: number;
   /** Most Floquet operators the certified lower bound may evaluate per gap (default 20000). */
   certificationBudget?: number;
+  /** Once above the tolerance, the lower bound is pushed up to this fraction of the refined minimum (default 0.5; 0: stop at the tolerance). */
+  certifiedFraction?: number;
 }
 
 /** Default budget of the certified lower bound, in Floquet operators per gap. */
@@ -254,7 +256,7 @@ export function findGaps(sampler: FloquetSampler, data: QuasienergyGrid, options
       grid: data.grid,
       initial: data.samples.map((s, i) => ({ value: direct[i], guard: clearanceAt(s.quasienergies, label) })),
       decisionLevel: tolerance,
-      relative: 1 - CERTIFIED_FRACTION,
+      relative: 1 - (options.certifiedFraction ?? CERTIFIED_FRACTION),
       budget: options.certificationBudget ?? DEFAULT_CERTIFICATION_BUDGET,
       margin,
       knownBest: { value: best, at: where },
