@@ -232,18 +232,35 @@ export interface ChainFrameReport {
   floquetResidual: number;
 }
 
-/** Chiral invariants (AIII, BDI): ν₀ = (ν′ + ν″)/2, ν_π = (ν′ − ν″)/2 (Asbóth & Obuse 2013). */
+/** ν₀ and ν_π from the half-period evolution F = U(t₀ + T/2, t₀) of the first frame (chain/half-period-winding.ts). */
+export interface ChainHalfPeriodReport {
+  frameTime: number;
+  /** Winding of det c (Γ = −1 rows, +1 columns of F): needs only the gap at 0 open. */
+  zero: IntegerEstimate;
+  /** Winding of det a (Γ = +1 block of F): needs only the gap at π/T open. */
+  pi: IntegerEstimate;
+  /** min |det| / max |det| of each block over the loop: small where that gap nearly closes. */
+  zeroModulusRatio: number;
+  piModulusRatio: number;
+}
+
+/** Chiral invariants (AIII, BDI): ν₀ = (ν′ + ν″)/2, ν_π = (ν′ − ν″)/2 (Asbóth & Obuse 2013), and the half-period invariants. */
 export interface ChainChiralReport {
-  /** 'computed', or why not: no symmetric time frame, or Γ with unequal ±1 eigenspaces. */
-  status: 'computed' | 'no-symmetric-frame' | 'unbalanced-chiral-operator';
+  /** 'computed', or why not: no symmetric time frame, Γ with unequal ±1 eigenspaces, or a declared first frame that is not symmetric. */
+  status: 'computed' | 'no-symmetric-frame' | 'unbalanced-chiral-operator' | 'declared-frame-not-symmetric';
   /** Where Γ comes from: declared, or built as U_T U_C* from time reversal and particle–hole. */
   source: 'declared' | 'time-reversal × particle-hole';
+  /** Whether the frames are the model's symmetricTimes (first listed defines ν′) or found by the engine. */
+  frameSource: 'declared' | 'found';
+  /** Which frames were used, in words. */
+  frameNotes: string[];
   frames: ChainFrameReport[];
   /** Residual of the best candidate frame and its tolerance (also when none was found). */
   frameResidual: number;
   frameTolerance: number;
   zero?: IntegerEstimate;
   pi?: IntegerEstimate;
+  halfPeriod?: ChainHalfPeriodReport;
   reason?: string;
 }
 

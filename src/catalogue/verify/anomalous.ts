@@ -79,7 +79,7 @@ export function classifyChain(piInvariant: PortraitEntry | undefined): Anomalous
     return { classification: 'not-anomalous', reason: `symmetry broken: ${residuals}, so no invariant protects end modes at π/T` };
   }
   if (!piInvariant.settled) {
-    const why = piInvariant.certificate.notes.filter((n) => !/^computed as/.test(n));
+    const why = piInvariant.certificate.notes.filter((n) => !/^(computed as|frames as declared|no symmetricTimes declared|the refinement history)/.test(n));
     return { classification: 'undetermined', reason: `${piInvariant.label} is unsettled${why.length > 0 ? ` (${why.join('; ')})` : ''}` };
   }
   if (piInvariant.value !== 0) return { classification: 'anomalous', reason: `${piInvariant.label} is ${piInvariant.value}: end modes at π/T` };

@@ -107,8 +107,28 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
   const invariants: ChainInvariant[] = [];
   const chiralSymmetry = symmetryEntries(p.symmetries, p.chiral?.source === 'declared' ? ['chiral'] : ['time-reversal', 'particle-hole']);
   if (p.chiral?.status === 'computed') {
-    if (p.chiral.zero) invariants.push({ gap: 0, kind: 'winding', estimate: combined(p.chiral.zero), symmetry: chiralSymmetry, fromFrames: true });
-    if (p.chiral.pi) invariants.push({ gap: 1, kind: 'winding', estimate: combined(p.chiral.pi), symmetry: chiralSymmetry, fromFrames: true });
+    const half = p.chiral.halfPeriod;
+    const t0 = half ? Number(half.frameTime.toPrecision(6)) : NaN;
+    for (const label of [0, 1] as const) {
+      const heff = label === 0 ? p.chiral.zero : p.chiral.pi;
+      const byHalf = label === 0 ? half?.zero : half?.pi;
+      if (heff === undefined) continue;
+      const symbol = label === 0 ? 'ν₀' : 'ν_π';
+      // H_eff needs both gaps open; the half-period method only the gap it belongs to (chain/half-period-winding.ts).
+      if (!heff.converged && byHalf?.converged) {
+        const block = label === 0 ? 'det c, c = ⟨Γ = −1|F|Γ = +1⟩' : 'det a, a = ⟨Γ = +1|F|Γ = +1⟩';
+        invariants.push({
+          gap: label,
+          kind: 'winding',
+          estimate: integerTolerance === undefined ? byHalf : withTolerance(byHalf, integerTolerance, true),
+          symmetry: chiralSymmetry,
+          method: `${symbol} from the half-period evolution F = U(t₀ + T/2, t₀), t₀ = ${t0} (Asbóth, Tarasinski, Delplace, PRB 90, 125143 (2014)): winding of ${block}; the H_eff windings are unsettled (they need both gaps open)`,
+        });
+        continue;
+      }
+      const agrees = byHalf?.converged && heff.converged ? `; the half-period method in t₀ = ${t0} gives ${byHalf.nearest}` : '';
+      invariants.push({ gap: label, kind: 'winding', estimate: combined(heff), symmetry: chiralSymmetry, fromFrames: true, method: `${symbol} = (ν′ ${label === 0 ? '+' : '−'} ν″)/2 from the H_eff windings of both frames${agrees}` });
+    }
   }
   if (p.majorana?.status === 'computed' && invariants.length === 0) {
     const ph = symmetryEntries(p.symmetries, ['particle-hole']);
@@ -147,6 +167,7 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     invariants,
     ...(invariantNote !== undefined ? { invariantNote } : {}),
     frames,
+    frameNotes: p.chiral?.frameNotes ?? [],
     endModes,
     openChain: chain ? { length: chain.cells, quasienergies: chain.quasienergies, lowEdgeWeight: chain.lowEdgeWeight, highEdgeWeight: chain.highEdgeWeight } : null,
     symmetry: symmetryEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']),

@@ -24,6 +24,14 @@ import { integerVerdict, symmetryBrokenVerdict } from './verdict.ts';
 
 export const SIGN_HINT_CHAIN = 'sign differs: check the direction of a₁ and the order of the sublattices in the chiral operator Γ';
 
+/** ν_π flips when the two frames are swapped: a sign-only disagreement at π/T most often means the other frame order. */
+export function frameOrderHint(view: ChainView): string {
+  const first = view.frames[0];
+  const declared = (view.frameNotes ?? []).some((n) => n.startsWith('frames as declared'));
+  const where = first ? ` (here t₀ = ${Number(first.time.toPrecision(6))}, ${declared ? 'the first time listed' : 'found by the engine, since none is listed'})` : '';
+  return `sign differs: ν_π = (ν′ − ν″)/2 changes sign when the two symmetric frames are swapped, and the first time in claims.symmetries.chiral.symmetricTimes defines ν′${where}; check the order of the frames (or the order of the sublattices in Γ)`;
+}
+
 const frameSymbol = (name: 'first' | 'second') => (name === 'first' ? 'ν′' : 'ν″');
 
 /** Which declared symmetry a residual of the view belongs to (names start with the symmetry, chain-view.ts). */
@@ -157,6 +165,8 @@ function invariantEvidence(view: ChainView, label: number, policy: VerdictPolicy
   }
   const fromFrames = inv.fromFrames === true && view.frames.length > 0;
   const ev = judgeEstimate(inv.estimate, [gapEvidence(view, label, policy)], policy, stage, symmetry, inv.signDecided === true || fromFrames);
+  if (inv.method) ev.certificate.notes.push(`computed as ${inv.method}`);
+  if (inv.kind === 'winding') ev.certificate.notes.push(...(view.frameNotes ?? []));
   if (fromFrames) {
     // ν₀ = (ν′ + ν″)/2 and ν_π = (ν′ − ν″)/2 are only as stable as the frame windings they come from.
     for (const { frame, ev: fe } of frameEvidence(view, policy)) {
@@ -167,7 +177,7 @@ function invariantEvidence(view: ChainView, label: number, policy: VerdictPolicy
         ev.certificate.notes.push(why);
       }
     }
-    ev.certificate.notes.push('computed as (ν′ ± ν″)/2 from the frame windings; the refinement history lists ν′ then ν″');
+    ev.certificate.notes.push('the refinement history lists ν′ then ν″');
     if (ev.reasons.length > 0) {
       ev.settled = false;
       ev.value = null;
@@ -218,7 +228,8 @@ export function judgeChain(view: ChainView, claims: NormalizedClaim[], policy: V
           break;
         }
         const alternatives: Alternative[] = [];
-        if (ev.value) alternatives.push({ value: -ev.value, hint: SIGN_HINT_CHAIN });
+        const chiralPi = sameLabel(claim.gap, 1) && view.invariants.some((i) => i.kind === 'winding' && sameLabel(i.gap, 1));
+        if (ev.value) alternatives.push({ value: -ev.value, hint: chiralPi ? frameOrderHint(view) : SIGN_HINT_CHAIN });
         for (const l of labels) {
           if (sameLabel(l, claim.gap)) continue;
           const v = invariantEvidence(view, l, policy).value;

@@ -18,6 +18,8 @@ export interface ChainInvariant {
   signDecided?: boolean;
   /** True for ν₀, ν_π computed from the frame windings: their stability under refinement is that of the frames. */
   fromFrames?: boolean;
+  /** How a chiral invariant was computed, in words, for the certificate. */
+  method?: string;
 }
 
 export interface FrameWinding {
@@ -44,6 +46,8 @@ export interface ChainView {
   bands: BandGroupReport[];
   invariants: ChainInvariant[];
   frames: FrameWinding[];
+  /** Which symmetric frames were used and where they come from (the model's symmetricTimes or the engine's search). */
+  frameNotes?: string[];
   endModes: EndModeCount[];
   /**
    * End-mode counts of a second, longer open chain (verify-model.ts recomputes

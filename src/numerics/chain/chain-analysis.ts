@@ -12,6 +12,7 @@ import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
 import type { LatticeDrive } from '../evolution/drive.ts';
 import type { PropagatorOptions } from '../evolution/propagator.ts';
 import type { ChainChiralReport, ChainEndModes, ChainMajoranaReport, ChainPortrait, ChainSymmetryReport, ConsistencyCheck } from '../portrait.ts';
+import type { IntegerEstimate } from '../certificates.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import { bulkGaps, FloquetCache } from './bulk-gaps.ts';
 import { chiralInvariants } from './chiral-winding.ts';
@@ -23,6 +24,8 @@ import type { SymmetryResidual } from './symmetry-residuals.ts';
 
 export interface ChainSymmetries {
   chiral?: ComplexMatrix;
+  /** The model's symmetric frame times, in its order (the first defines ν′). */
+  chiralTimes?: number[];
   particleHole?: { unitary: ComplexMatrix };
   timeReversal?: { unitary: ComplexMatrix };
 }
@@ -73,7 +76,7 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
     gamma = chiralFromTimeReversalAndParticleHole(symmetries.timeReversal.unitary, symmetries.particleHole.unitary);
     source = 'time-reversal × particle-hole';
   }
-  const chiral = gamma ? timed('chiral', () => chiralReport(drive, gamma!, source, tol, propagator)) : undefined;
+  const chiral = gamma ? timed('chiral', () => chiralReport(drive, gamma!, source, tol, propagator, symmetries.chiralTimes)) : undefined;
   const majorana = symmetries.particleHole ? timed('majorana', () => majoranaReport(drive, symmetries.particleHole!.unitary, propagator)) : undefined;
   // Winding of det U(k, T) (quasienergy-winding.ts), on the operators the gap scan already computed.
   const det = timed('determinant-winding', () => phaseWinding((s) => new LuDecomposition(cache.operator(s).operator).determinant));
@@ -102,9 +105,20 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
     holds: det.winding.converged && det.winding.nearest === 0,
     detail: `winding of det U(k, T) = ${det.winding.raw.toFixed(6)} on ${det.points} momenta (0 for any Hamiltonian drive)`,
   });
+  if (chiral?.status === 'computed' && chiral.halfPeriod) {
+    // Two methods for the same invariant where both apply: a disagreement is reported, never smoothed over.
+    for (const [label, heff, half] of [['0', chiral.zero, chiral.halfPeriod.zero], ['π', chiral.pi, chiral.halfPeriod.pi]] as const) {
+      if (!heff?.converged || !half.converged) continue;
+      consistency.push({
+        name: `half-period vs H_eff at ${label}`,
+        holds: heff.nearest === half.nearest,
+        detail: `ν_${label} = ${heff.nearest} from the H_eff windings of both frames, ${half.nearest} from the half-period evolution of the first frame`,
+      });
+    }
+  }
   for (const m of modes) {
     const name = m.label === 0 ? '0' : 'π';
-    const inv = chiral?.status === 'computed' ? (m.label === 0 ? chiral.zero : chiral.pi) : undefined;
+    const inv = chiral?.status === 'computed' ? settledChiral(chiral, m.label) : undefined;
     if (inv && inv.converged && m.settled) {
       const expected = Math.abs(inv.nearest);
       consistency.push({
@@ -162,11 +176,29 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   };
 }
 
-function chiralReport(drive: LatticeDrive, gamma: ComplexMatrix, source: ChainChiralReport['source'], tol: number, propagator?: PropagatorOptions): ChainChiralReport {
-  const r = chiralInvariants(drive, gamma, { frames: { tolerance: tol }, propagator });
+/** The chiral invariant of a gap: from the H_eff windings when they converged, else from the half-period evolution. */
+export function settledChiral(chiral: ChainChiralReport, label: 0 | 1): IntegerEstimate | undefined {
+  const heff = label === 0 ? chiral.zero : chiral.pi;
+  if (heff?.converged) return heff;
+  const half = label === 0 ? chiral.halfPeriod?.zero : chiral.halfPeriod?.pi;
+  return half ?? heff;
+}
+
+function chiralReport(
+  drive: LatticeDrive,
+  gamma: ComplexMatrix,
+  source: ChainChiralReport['source'],
+  tol: number,
+  propagator?: PropagatorOptions,
+  declaredFrames?: number[],
+): ChainChiralReport {
+  const r = chiralInvariants(drive, gamma, { frames: { tolerance: tol }, propagator, declaredFrames });
+  const ratio = (w: { minModulus: number; maxModulus: number }) => (w.maxModulus > 0 ? w.minModulus / w.maxModulus : 0);
   return {
     status: r.status,
     source,
+    frameSource: r.frameSource,
+    frameNotes: r.notes,
     frames: r.frames.map((f) => ({
       frameTime: f.frameTime,
       winding: f.result.winding,
@@ -179,6 +211,17 @@ function chiralReport(drive: LatticeDrive, gamma: ComplexMatrix, source: ChainCh
     frameTolerance: r.search?.tolerance ?? tol,
     ...(r.zero ? { zero: r.zero } : {}),
     ...(r.pi ? { pi: r.pi } : {}),
+    ...(r.halfPeriod
+      ? {
+          halfPeriod: {
+            frameTime: r.halfPeriod.frameTime,
+            zero: r.halfPeriod.zero.winding,
+            pi: r.halfPeriod.pi.winding,
+            zeroModulusRatio: ratio(r.halfPeriod.zero),
+            piModulusRatio: ratio(r.halfPeriod.pi),
+          },
+        }
+      : {}),
     ...(r.reason !== undefined ? { reason: r.reason } : {}),
   };
 }

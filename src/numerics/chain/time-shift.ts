@@ -67,7 +67,8 @@ export function shiftTimeOrigin(drive: LatticeDrive, t0: number): LatticeDrive {
   return { ...drive, segments: rotated };
 }
 
-function halfKick(segment: DriveSegment): DriveSegment {
+/** The same kick with half its generator: exp(−iK/2), twice, is exp(−iK). */
+export function halfKick(segment: DriveSegment): DriveSegment {
   return {
     ...segment,
     terms: segment.terms.map((term) => ({ ...term, amplitude: { re: 0.5 * term.amplitude.re, im: 0.5 * term.amplitude.im } })),
@@ -89,4 +90,38 @@ function advanceTerm(term: DriveTerm, angle: number): DriveTerm {
       ? term.modulation
       : { ...term.modulation, components: term.modulation.components.map((c) => ({ ...c, phase: c.phase + c.harmonic * angle })) };
   return { ...term, modulation };
+}
+
+/**
+ * The evolution over the first half period of the frame t₀, F = U(t₀ + T/2, t₀),
+ * as a drive of the same period: the segments of the drive rotated to t₀ up
+ * to T/2 (a segment across T/2 is cut there; of a kick group sitting exactly at
+ * T/2, the first half, as the rotation splits a group at t₀), followed by an idle
+ * second half with no terms. Its Floquet operator is F; harmonics keep their
+ * absolute times because the period is unchanged.
+ */
+export function halfPeriodDrive(drive: LatticeDrive, t0: number): LatticeDrive {
+  const rotated = shiftTimeOrigin(drive, t0);
+  const T = rotated.period, half = T / 2, eps = TIME_MATCH * T;
+  const starts = segmentStartTimes(rotated);
+  const first: DriveSegment[] = [];
+  const group: DriveSegment[] = [];
+  rotated.segments.forEach((segment, i) => {
+    const a = starts[i];
+    if (segment.duration === 0) {
+      if (Math.abs(a - half) <= eps) group.push(segment);
+      else if (a < half) first.push(segment);
+      return;
+    }
+    const b = a + segment.duration;
+    if (b <= half + eps) first.push(segment);
+    else if (a < half - eps) first.push({ ...segment, duration: half - a });
+  });
+  const m = group.length;
+  if (m % 2 === 0) first.push(...group.slice(0, m / 2));
+  else first.push(...group.slice(0, (m - 1) / 2), halfKick(group[(m - 1) / 2]));
+  // Durations up to T/2 sum to half within rounding; the idle half closes the period exactly.
+  const used = first.reduce((x, s) => x + s.duration, 0);
+  first.push({ label: 'second half (idle)', duration: T - used, terms: [] });
+  return { ...rotated, segments: first };
 }
