@@ -7,6 +7,7 @@
  * together with their users.
  */
 import type { IntegerEstimate } from './certificates.ts';
+import type { SymmetryClassReport } from './symmetry/altland-zirnbauer.ts';
 
 /**
  * The certified lower bound of a minimal direct gap (certified-minimum.ts): the
@@ -173,6 +174,10 @@ export interface SheetPortrait {
   eigenResidual: number;
   /** Number of Floquet operators evaluated for the bulk (bands, refinement, Chern grids). */
   floquetEvaluations: number;
+  /** Declared symmetries with residuals (empty when none is declared). */
+  symmetries: SymmetryReport[];
+  /** The Altland–Zirnbauer class the declared operators define. */
+  symmetryClass: SymmetryClassReport;
   /** Wall time per stage in milliseconds. */
   timings: Record<string, number>;
 }
@@ -203,8 +208,8 @@ export interface ChainGapReport {
   certified?: GapCertificate;
 }
 
-/** A declared symmetry and how well the drive satisfies it. */
-export interface ChainSymmetryReport {
+/** A declared symmetry and how well the drive satisfies it (chains and sheets). */
+export interface SymmetryReport {
   symmetry: 'chiral' | 'particle-hole' | 'time-reversal';
   /** Relative residual of the Hamiltonian relation, ‖…‖_F / max(1, ‖H‖_F), max over checked times and momenta. */
   hamiltonianResidual: number;
@@ -216,6 +221,8 @@ export interface ChainSymmetryReport {
   /** False: the symmetry is broken ("symmetry broken" for any claim resting on it). */
   holds: boolean;
 }
+
+export type ChainSymmetryReport = SymmetryReport;
 
 /** The winding of one symmetric time frame. */
 export interface ChainFrameReport {
@@ -323,6 +330,8 @@ export interface ChainPortrait {
   velocity: number;
   /** Declared symmetries with residuals. */
   symmetries: ChainSymmetryReport[];
+  /** The Altland–Zirnbauer class the declared operators define. */
+  symmetryClass: SymmetryClassReport;
   /** Present when a chiral operator is declared or derivable (time reversal and particle–hole both declared). */
   chiral?: ChainChiralReport;
   /** Present when particle–hole symmetry is declared. */

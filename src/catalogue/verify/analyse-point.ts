@@ -98,7 +98,7 @@ export function analysePoint(
 export function distrustOnInconsistency(verdicts: Verdict[], entries: PortraitEntry[], checks: ConsistencyCheck[]): void {
   const failed = checks.filter((c) => !c.holds && c.inconclusive !== true);
   if (failed.length === 0) return;
-  const why = `computed invariants contradict each other (${failed.map((c) => `${c.name}: ${c.detail}`).join('; ')})`;
+  const why = `computed invariants contradict each other (${failed.map((c) => `${c.name}: ${c.detail}`).join('; ')}); to settle, refine numerics.kGrid and numerics.ribbon.width, and report the model file if the relation still fails`;
   for (const v of verdicts) {
     if (v.outcome === 'unsettled' || v.kind === 'minimal-gap') continue;
     v.outcome = 'unsettled';
@@ -173,7 +173,7 @@ function finishAnomalousClaims(verdicts: Verdict[], claims: NormalizedClaim[], f
     certificate.gaps = entries.flatMap((e) => e.certificate.gaps).filter((g, i, all) => all.findIndex((h) => sameLabel(h.gap, g.gap)) === i);
     const base = { claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: null, claimed: claim.value, certificate };
     if (holds === null) {
-      verdicts.push({ ...base, outcome: 'unsettled', computed: null, estimate: null, message: `Whether the phase is anomalous could not be settled: ${flag.reason}.`, hint: null });
+      verdicts.push({ ...base, outcome: 'unsettled', computed: null, estimate: null, message: `Whether the phase is anomalous could not be settled: ${flag.reason}.`, hint: 'settle the invariants the reason names first (their own verdicts say how)' });
     } else if (holds === claim.value) {
       verdicts.push({ ...base, outcome: 'confirmed', computed: holds, estimate: holds, message: `The phase is ${holds ? '' : 'not '}anomalous, as claimed: ${flag.reason}.`, hint: null });
     } else {

@@ -17,6 +17,7 @@ import type { AnalysisRequest } from './engines.ts';
 import { propagatorHints } from './engines.ts';
 import type { ChainInvariant, ChainView } from './chain-view.ts';
 import { wrapLabel } from './claims.ts';
+import { residualEntries } from './symmetry-verdicts.ts';
 import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.ts';
 import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
 import { DEFAULT_POLICY } from './policy.ts';
@@ -62,15 +63,6 @@ function withTolerance(e: IntegerEstimate, tolerance: number, stable: boolean): 
   return integerEstimate(e.raw, tolerance, e.grid, e.history, stable, e.caveat);
 }
 
-function symmetryEntries(reports: ChainSymmetryReport[], which: ChainSymmetryReport['symmetry'][]) {
-  return reports
-    .filter((r) => which.includes(r.symmetry))
-    .flatMap((r) => [
-      { name: `${r.symmetry} symmetry of H(t)${r.frameTime !== undefined ? ` about t₀ = ${Number(r.frameTime.toPrecision(6))}` : ''}`, residual: r.hamiltonianResidual, tolerance: r.tolerance },
-      { name: `${r.symmetry} symmetry of the Floquet operator`, residual: r.floquetResidual, tolerance: r.tolerance },
-    ]);
-}
-
 /** Accepted residual of a Z₂ index when the model sets none (the value is exactly 0 or 1; the margin is the evidence). */
 const DEFAULT_Z2_TOLERANCE = 0.01;
 
@@ -105,7 +97,7 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
   // Width of each of the bands between the two gaps (two bands share what the gap arcs leave of the circle).
   const bandwidth = Math.max(0, (2 - p.gaps.reduce((a, g) => a + g.arcWidth, 0)) / 2);
   const invariants: ChainInvariant[] = [];
-  const chiralSymmetry = symmetryEntries(p.symmetries, p.chiral?.source === 'declared' ? ['chiral'] : ['time-reversal', 'particle-hole']);
+  const chiralSymmetry = residualEntries(p.symmetries, p.chiral?.source === 'declared' ? ['chiral'] : ['time-reversal', 'particle-hole']);
   if (p.chiral?.status === 'computed') {
     const half = p.chiral.halfPeriod;
     const t0 = half ? Number(half.frameTime.toPrecision(6)) : NaN;
@@ -131,7 +123,7 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     }
   }
   if (p.majorana?.status === 'computed' && invariants.length === 0) {
-    const ph = symmetryEntries(p.symmetries, ['particle-hole']);
+    const ph = residualEntries(p.symmetries, ['particle-hole']);
     const points = p.majorana.momenta.length;
     const z2 = (sign: 1 | -1 | null, margin: number) => z2Estimate(sign, margin, p.majorana!.tolerance, points, integerTolerance);
     invariants.push({ gap: 0, kind: 'z2', estimate: z2(p.majorana.zero, p.majorana.zeroMargin), symmetry: ph, signDecided: true });
@@ -170,7 +162,8 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     frameNotes: p.chiral?.frameNotes ?? [],
     endModes,
     openChain: chain ? { length: chain.cells, quasienergies: chain.quasienergies, lowEdgeWeight: chain.lowEdgeWeight, highEdgeWeight: chain.highEdgeWeight } : null,
-    symmetry: symmetryEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']),
+    symmetry: residualEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']),
+    symmetryClass: p.symmetryClass,
     consistency: p.consistency,
     propagatorAccuracy: p.propagatorAccuracy,
     bandwidth,

@@ -5,6 +5,7 @@
  */
 import type { IntegerEstimate } from '../../numerics/certificates.ts';
 import type { BandGroupReport, ConsistencyCheck, GapReport } from '../../numerics/portrait.ts';
+import type { SymmetryClassReport } from '../../numerics/symmetry/altland-zirnbauer.ts';
 
 export interface ChainInvariant {
   /** Gap label (units π/T): 0 for ν₀, 1 for ν_π. */
@@ -14,6 +15,8 @@ export interface ChainInvariant {
   estimate: IntegerEstimate;
   /** Symmetry relations the invariant rests on, with residuals and tolerances. */
   symmetry: { name: string; residual: number; tolerance: number }[];
+  /** The Altland–Zirnbauer class the declared operators define (absent from hand-made views). */
+  symmetryClass?: SymmetryClassReport;
   /** True when the value is not refined on grids but decided by a sign with a margin (Pfaffian signs). */
   signDecided?: boolean;
   /** True for ν₀, ν_π computed from the frame windings: their stability under refinement is that of the frames. */
@@ -62,6 +65,8 @@ export interface ChainView {
    * " symmetry of H(t)…" or " symmetry of the Floquet operator".
    */
   symmetry: { name: string; residual: number; tolerance: number }[];
+  /** The Altland–Zirnbauer class the declared operators define (absent from hand-made views). */
+  symmetryClass?: SymmetryClassReport;
   /** Why the engine computed no 0/π invariant although a symmetry is declared (e.g. no symmetric time frame), when it says. */
   invariantNote?: string;
   consistency: ConsistencyCheck[];

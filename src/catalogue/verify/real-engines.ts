@@ -40,6 +40,6 @@ export function sheetOptions(request: AnalysisRequest): SheetOptions {
 
 export const realEngines: EngineSet = {
   compile: (model, overrides) => compileModel(model, overrides),
-  sheet: (compiled, request) => analyseSheet(compiled.drive, sheetOptions(request)),
+  sheet: (compiled, request) => analyseSheet(compiled.drive, { ...sheetOptions(request), symmetries: compiled.symmetries }),
   chain: (compiled, request) => analyseChainView(compiled, request),
 };

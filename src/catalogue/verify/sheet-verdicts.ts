@@ -19,6 +19,7 @@ import type { VerdictPolicy } from './policy.ts';
 import { gapTolerance } from './policy.ts';
 import type { Alternative, Verdict } from './verdict.ts';
 import { integerVerdict } from './verdict.ts';
+import { residualEntries, symmetryClassVerdict, symmetryFor, symmetryVerdict } from './symmetry-verdicts.ts';
 
 const SAME = 1e-6;
 
@@ -72,7 +73,8 @@ export function noGapReason(source: Pick<GapSource, 'gaps' | 'bands'>, label: nu
   const where = band
     ? `; it lies in band group ${band.index} (quasienergies ${band.range[0].toFixed(3)} to ${band.range[1].toFixed(3)} π/T)`
     : '';
-  return `no open gap contains ${formatQuasienergy(label)}${where}; open gaps: ${open.length > 0 ? open.join(', ') : 'none'}`;
+  const remedy = open.length > 0 ? 'name the gap by a quasienergy inside one of the open gaps' : 'move the parameter point to where a gap opens';
+  return `no open gap contains ${formatQuasienergy(label)}${where}; open gaps: ${open.length > 0 ? open.join(', ') : 'none'}; to settle, ${remedy}`;
 }
 
 function missingGap(source: GapSource, label: number, stage: string): SettledInteger {
@@ -263,12 +265,12 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
           // touch and merge into one group): the band a claim names is then not a band computed.
           const why = !ordered
             ? `the cut must be an open gap, but ${noGapReason(p, claim.cut)}`
-            : `the file claims ${claimedBands} band(s) above the cut at ${formatQuasienergy(claim.cut)}, but ${ordered.length} band group(s) lie between open gaps (bands that touch count as one group; open gaps: ${p.gaps.filter((g) => g.open).map((g) => formatQuasienergy(g.label)).join(', ') || 'none'})`;
+            : `the file claims ${claimedBands} band(s) above the cut at ${formatQuasienergy(claim.cut)}, but ${ordered.length} band group(s) lie between open gaps (bands that touch count as one group; open gaps: ${p.gaps.filter((g) => g.open).map((g) => formatQuasienergy(g.label)).join(', ') || 'none'}); to settle, claim one Chern number per band group, or move the parameter point to where the gaps between the claimed bands open`;
           certificate.notes.push(why);
           verdicts.push({
             claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.cut, outcome: 'unsettled', claimed: claim.value,
             computed: null, estimate: null, message: `The Chern number of band ${claim.band + 1} above the cut is ill-defined: ${why}.`,
-            hint: 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch', certificate,
+            hint: 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch (see the gaps in the certificate)', certificate,
           });
           break;
         }
@@ -289,7 +291,11 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
       case 'anomalous':
         break; // judged from the whole portrait (analyse-point.ts)
       case 'symmetry':
-        break; // the two-dimensional engine computes no symmetry residuals (docs/model-format.md, Claims)
+        verdicts.push(symmetryVerdict(claim, symmetryFor(residualEntries(p.symmetries, [claim.symmetry]), policy)));
+        break;
+      case 'symmetry-class':
+        verdicts.push(symmetryClassVerdict(claim, p.symmetryClass, residualEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']), policy));
+        break;
       default:
         verdicts.push(notApplicable(claim, 'a two-dimensional model'));
     }

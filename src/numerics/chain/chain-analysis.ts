@@ -11,7 +11,7 @@
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
 import type { LatticeDrive } from '../evolution/drive.ts';
 import type { PropagatorOptions } from '../evolution/propagator.ts';
-import type { ChainChiralReport, ChainEndModes, ChainMajoranaReport, ChainPortrait, ChainSymmetryReport, ConsistencyCheck } from '../portrait.ts';
+import type { ChainChiralReport, ChainEndModes, ChainMajoranaReport, ChainPortrait, ConsistencyCheck } from '../portrait.ts';
 import type { IntegerEstimate } from '../certificates.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import { bulkGaps, FloquetCache } from './bulk-gaps.ts';
@@ -19,15 +19,16 @@ import { chiralInvariants } from './chiral-winding.ts';
 import { majoranaInvariants } from './majorana-z2.ts';
 import { phaseWinding } from './phase-winding.ts';
 import { defaultChainLength, openChainSpectrum } from './open-chain.ts';
-import { chiralFromTimeReversalAndParticleHole, chiralResidual, particleHoleResidual, timeReversalResidual } from './symmetry-residuals.ts';
-import type { SymmetryResidual } from './symmetry-residuals.ts';
+import { chiralFromTimeReversalAndParticleHole } from '../symmetry/symmetry-residuals.ts';
+import { declaredSymmetryReports } from '../symmetry/declared-symmetries.ts';
+import { declaredSymmetryClass } from '../symmetry/altland-zirnbauer.ts';
 
 export interface ChainSymmetries {
   chiral?: ComplexMatrix;
   /** The model's symmetric frame times, in its order (the first defines ν′). */
   chiralTimes?: number[];
-  particleHole?: { unitary: ComplexMatrix };
-  timeReversal?: { unitary: ComplexMatrix };
+  particleHole?: { unitary: ComplexMatrix; antiunitary?: boolean };
+  timeReversal?: { unitary: ComplexMatrix; antiunitary?: boolean };
 }
 
 export interface ChainAnalysisOptions {
@@ -62,13 +63,7 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   const cache = new FloquetCache(drive, propagator);
   const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator, cache, certifyAbove: options.gapTolerance, certificationBudget: options.gapEvaluations }));
 
-  const residuals: SymmetryResidual[] = timed('symmetries', () => {
-    const out: SymmetryResidual[] = [];
-    if (symmetries.chiral) out.push(chiralResidual(drive, symmetries.chiral, tol, propagator));
-    if (symmetries.particleHole) out.push(particleHoleResidual(drive, symmetries.particleHole.unitary, tol, propagator));
-    if (symmetries.timeReversal) out.push(timeReversalResidual(drive, symmetries.timeReversal.unitary, tol, propagator));
-    return out;
-  });
+  const symmetryReports = timed('symmetries', () => declaredSymmetryReports(drive, symmetries, tol, propagator));
 
   let gamma: ComplexMatrix | undefined = symmetries.chiral;
   let source: ChainChiralReport['source'] = 'declared';
@@ -138,21 +133,13 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
     }
   }
 
-  const symmetryReports: ChainSymmetryReport[] = residuals.map((r) => ({
-    symmetry: r.symmetry,
-    hamiltonianResidual: r.hamiltonian,
-    floquetResidual: r.floquet,
-    ...(r.frameTime !== undefined ? { frameTime: r.frameTime } : {}),
-    tolerance: r.tolerance,
-    holds: r.holds,
-  }));
-
   return {
     kind: 'chain',
     gaps: bulk.gaps.map((g) => ({ ...g })),
     gapGrid: bulk.grid,
     velocity: bulk.velocity,
     symmetries: symmetryReports,
+    symmetryClass: declaredSymmetryClass(symmetries),
     ...(chiral ? { chiral } : {}),
     ...(majorana ? { majorana } : {}),
     determinantWinding: det.winding,

@@ -33,12 +33,13 @@ import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import { floquetOperator } from '../evolution/propagator.ts';
 import { quasienergyBelowCut, spectralSum } from '../evolution/effective-hamiltonian.ts';
-import { shiftTimeOrigin } from './time-shift.ts';
-import { chiralRelation, findSymmetricFrames } from './symmetric-frames.ts';
-import { reflectionResidual } from './reflection-residual.ts';
+import { shiftTimeOrigin } from '../evolution/time-shift.ts';
+import { chiralRelation, findSymmetricFrames } from '../symmetry/symmetric-frames.ts';
+import { reflectionResidual } from '../symmetry/reflection-residual.ts';
+import { chiralFloquetDefect } from '../symmetry/symmetry-residuals.ts';
 import type { HalfPeriodInvariants } from './half-period-winding.ts';
 import { halfPeriodInvariants } from './half-period-winding.ts';
-import type { FrameSearchOptions, SymmetricFrameSearch } from './symmetric-frames.ts';
+import type { FrameSearchOptions, SymmetricFrameSearch } from '../symmetry/symmetric-frames.ts';
 import { phaseWinding } from './phase-winding.ts';
 import type { PhaseWindingOptions, PhaseWindingResult } from './phase-winding.ts';
 
@@ -211,18 +212,4 @@ function frameWinding(
   };
   const result = phaseWinding(f, options.winding);
   return { frameTime: t0, result, floquetResidual, clearanceZero, clearancePi };
-}
-
-/** ‖Γ U Γ† − U†‖_F. */
-export function chiralFloquetDefect(u: ComplexMatrix, gamma: ComplexMatrix): number {
-  const g = multiply(multiply(gamma, u), adjoint(gamma));
-  const n = u.rows;
-  let s = 0;
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const dr = g.re[i * n + j] - u.re[j * n + i], di = g.im[i * n + j] + u.im[j * n + i];
-      s += dr * dr + di * di;
-    }
-  }
-  return Math.sqrt(s);
 }

@@ -32,7 +32,7 @@ import type { PropagatorOptions } from '../evolution/propagator.ts';
 import { multiply, multiplyAdjointLeft } from '../linalg/complex-matrix.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import { prepareFloquet } from '../evolution/propagator.ts';
-import { halfPeriodDrive } from './time-shift.ts';
+import { halfPeriodDrive } from '../evolution/time-shift.ts';
 import { phaseWinding } from './phase-winding.ts';
 import type { PhaseWindingOptions, PhaseWindingResult } from './phase-winding.ts';
 

@@ -32,7 +32,7 @@ import { segmentStartTimes } from '../evolution/drive.ts';
 import { nambuParticleHole } from '../evolution/bdg.ts';
 import { realSkewPfaffian } from './pfaffian.ts';
 import { fockHamiltonian, majoranaOperators, majoranaProducts, MAX_FOCK_MODES } from './fock-spin-lift.ts';
-import { isTimeDependent } from './reflection-residual.ts';
+import { isTimeDependent } from '../symmetry/reflection-residual.ts';
 
 export interface MajoranaParity {
   /** +1: even number (usually none) of Majorana modes per end; −1: odd. null when unsettled. */

@@ -29,6 +29,9 @@ import { countEdgeModes } from './edge-modes.ts';
 import { ribbonSpectrum } from './ribbon.ts';
 import type { WindingOptions } from './winding/gap-winding.ts';
 import { gapWindingNumbers } from './winding/gap-winding.ts';
+import type { DeclaredOperators } from '../symmetry/altland-zirnbauer.ts';
+import { declaredSymmetryClass } from '../symmetry/altland-zirnbauer.ts';
+import { declaredSymmetryReports } from '../symmetry/declared-symmetries.ts';
 
 export interface SheetRibbonOptions {
   /** Finite directions to cut (default both, [0, 1]). */
@@ -66,7 +69,13 @@ export interface SheetOptions {
   propagator?: PropagatorOptions;
   /** Stages to run (all default true). */
   run?: { chern?: boolean; winding?: boolean; edges?: boolean };
+  /** Declared symmetry operators: each gets residuals (checked with the chains' strict time integration). */
+  symmetries?: DeclaredOperators;
 }
+
+/** Relative tolerance of the symmetry relations, and the time-integration tolerance (radians) they are checked with, as for chains. */
+export const SYMMETRY_TOLERANCE = 1e-10;
+export const SYMMETRY_PROPAGATOR_TOLERANCE = 1e-9;
 
 export const DEFAULT_SHEET_GRID = [24, 24];
 
@@ -125,7 +134,8 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   const propagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, integerTolerance) };
   // Edge counts are counts, not residual-tested integers: only the gap part of the rule applies to ribbons.
   const ribbonPropagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, 0.01) };
-  const chernOptions: ChernOptions = { initialGrid: Math.max(...grid), ...options.chern };
+  // The refinement doubles from the band grid at least twice, so raising numerics.kGrid always buys refinement.
+  const chernOptions: ChernOptions = { initialGrid: Math.max(...grid), maxGrid: Math.max(128, 4 * Math.max(...grid)), ...options.chern };
   const sampler = new FloquetSampler(drive, { propagator });
 
   let t = clock();
@@ -206,6 +216,11 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   }
   timings.edges = clock() - t;
 
+  t = clock();
+  const declared = options.symmetries ?? {};
+  const symmetries = declaredSymmetryReports(drive, declared, SYMMETRY_TOLERANCE, { ...options.propagator, tolerance: Math.min(options.propagator?.tolerance ?? Infinity, SYMMETRY_PROPAGATOR_TOLERANCE) });
+  timings.symmetries = clock() - t;
+
   const consistency = consistencyChecks(ordered, bands, windings, ribbons, latticeOrientation(drive));
   return {
     kind: 'sheet',
@@ -220,6 +235,8 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
     cut: ordered.length > 0 ? ordered[0].label : NaN,
     eigenResidual: sampler.worstEigenResidual,
     floquetEvaluations: sampler.evaluations,
+    symmetries,
+    symmetryClass: declaredSymmetryClass(declared),
     timings,
   };
 }

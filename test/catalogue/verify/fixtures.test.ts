@@ -17,7 +17,7 @@
  *    the hoppings anticommute with Γ and the onsite term commutes, so in the frame t₀ = T/4
  *    ΓH(t₀+s)Γ† + H(t₀−s) = 2ε|a⟩⟨a| while both times lie in the first step, and 0 while both
  *    lie in the second (derived here). The engine's residual is max‖…‖_F / max(1, max‖H‖_F)
- *    (src/numerics/chain/reflection-residual.ts), the largest ‖H‖_F being the intercell step's
+ *    (src/numerics/symmetry/reflection-residual.ts), the largest ‖H‖_F being the intercell step's
  *    √2·J₂: residual = 2ε / (√2·J₂) with J₂ = 2θ₂/T.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -25,6 +25,7 @@ import { verifyCatalogue, type CatalogueReport } from '../../../src/catalogue/ve
 import { reportProblems } from '../../../src/catalogue/records/report-validation.ts';
 import { canonicalJson } from '../../../src/catalogue/records/canonical-json.ts';
 import { recordLookup } from './record-lookup.ts';
+import { formatNumber } from '../../../src/catalogue/verify/format.ts';
 
 let report: CatalogueReport;
 const { record, verdict } = recordLookup(() => report);
@@ -110,7 +111,8 @@ describe('verification of purpose-built models', () => {
     expect(v).toMatchObject({ kind: 'symmetry', pointer: '/claims/symmetries/chiral/operator', outcome: 'confirmed', computed: true });
     for (const s of v.certificate.symmetry) expect(s.residual).toBeLessThanOrEqual(s.tolerance);
     // Every chain certificate carries the residuals, end-mode counts included.
-    expect(verdict('two-step-chain-correct', 'gap-1/end-modes').certificate.symmetry.length).toBe(2);
+    // Two relations (H and U) for each declared operator, chiral and time reversal.
+    expect(verdict('two-step-chain-correct', 'gap-1/end-modes').certificate.symmetry.length).toBe(4);
   });
 
   it('contradicts a chiral operator broken by an onsite term, and every claim resting on it, with the residual', () => {
@@ -122,11 +124,11 @@ describe('verification of purpose-built models', () => {
     const eps = 0.5, j2 = 2 * 0.7 * Math.PI;
     const expected = (2 * eps) / (Math.SQRT2 * j2);
     expect(Math.abs(hamiltonian.residual - expected)).toBeLessThanOrEqual(1e-9 * expected);
-    expect(gamma.message).toContain(`‖ΓH(t₀+s)Γ† + H(t₀−s)‖ = ${expected.toPrecision(3)} > tolerance`);
+    expect(gamma.message).toContain(`‖ΓH(t₀+s)Γ† + H(t₀−s)‖ = ${formatNumber(expected)} > tolerance`);
     for (const claim of ['gap-0/invariant', 'gap-1/invariant']) {
       const v = verdict('two-step-chain-onsite', claim);
       expect(v.outcome).toBe('contradicted');
-      expect(v.message).toMatch(/is not defined, symmetry broken: ‖ΓH\(t₀\+s\)Γ† \+ H\(t₀−s\)‖ = 0\.161 > tolerance 1\.00e-8/);
+      expect(v.message).toMatch(/is not defined, symmetry broken: ‖ΓH\(t₀\+s\)Γ† \+ H\(t₀−s\)‖ = 0\.161 > tolerance 1e-8/);
     }
     expect(verdict('two-step-chain-onsite', 'anomalous')).toMatchObject({ outcome: 'contradicted', computed: false });
     expect(r.anomalous.reason).toMatch(/^symmetry broken/);

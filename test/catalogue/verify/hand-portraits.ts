@@ -5,6 +5,7 @@
 import type { IntegerEstimate } from '../../../src/numerics/certificates.ts';
 import type { ChernEstimate, GapCertificate, RibbonReport } from '../../../src/numerics/portrait.ts';
 import type { CheckedSheetPortrait } from '../../../src/catalogue/verify/sheet-verdicts.ts';
+import { declaredSymmetryClass } from '../../../src/numerics/symmetry/altland-zirnbauer.ts';
 
 /** An integer estimate refined over two grids, converging to `value` with residual `residual`. */
 export function estimate(value: number, options: { residual?: number; coarse?: number; tolerance?: number; converged?: boolean; caveat?: string } = {}): IntegerEstimate {
@@ -93,6 +94,8 @@ export function twoBandSheet(o: { c?: [number, number]; w?: [number, number]; ga
     cut: 0,
     eigenResidual: 1e-14,
     floquetEvaluations: 2304,
+    symmetries: [],
+    symmetryClass: declaredSymmetryClass({}),
     timings: { bands: 1, winding: 2, ribbon: 3 },
   };
 }

@@ -84,9 +84,9 @@ describe('verdicts on a two-dimensional portrait', () => {
     p.windings[0].winding = estimate(1, { coarse: 0.2 });
     const moving = judgeSheet(p, [winding(0, 1)], DEFAULT_POLICY).verdicts[0];
     expect(moving.outcome).toBe('unsettled');
-    expect(moving.message).toMatch(/changed under the last refinement \(0 on 24×24, 1 on 48×48\)/);
+    expect(moving.message).toMatch(/changed under the last refinement \(0 on 24², 1 on 48²\); to settle, raise numerics\.windingEvaluations/);
     p.windings[0].winding = estimate(1, { residual: 0.2 });
-    expect(judgeSheet(p, [winding(0, 1)], DEFAULT_POLICY).verdicts[0].message).toMatch(/\|x − round x\| = 0\.200 exceeds the tolerance 0\.0100/);
+    expect(judgeSheet(p, [winding(0, 1)], DEFAULT_POLICY).verdicts[0].message).toMatch(/\|x − round x\| = 0\.2 exceeds the tolerance 0\.01; to settle, raise numerics\.windingEvaluations/);
   });
 
   it('lists unclaimed invariants in the portrait and flags the Chern-trivial anomalous phase', () => {
@@ -113,7 +113,7 @@ describe('claims at a quasienergy that no open gap contains', () => {
       expect(v.outcome).toBe('unsettled');
       expect(v.message).toContain('no open gap contains ε = 0.45 π/T; it lies in band group 0 (quasienergies 0.400 to 0.600 π/T); open gaps: ε = 0, ε = π/T');
       expect(v.message).not.toMatch(/not computed by the engine/);
-      expect(v.hint).toMatch(/^name a gap by a quasienergy inside it/);
+      expect(v.hint).toMatch(/^name the gap by a quasienergy inside one of the open gaps/);
     }
   });
 });
@@ -133,7 +133,7 @@ describe('edge counts at two ribbon widths', () => {
     const changed = judgeSheet(p, [edge(0, 'low', 1)], DEFAULT_POLICY).verdicts[0];
     expect(changed.outcome).toBe('unsettled');
     expect(changed.message).toMatch(/the count changed with the ribbon width: 1 at 40, 2 at 60/);
-    expect(changed.hint).toMatch(/depends on the system size/);
+    expect(changed.hint).toMatch(/^raise numerics\.ribbon\.width well beyond the decay length/);
     delete p.checkRibbons;
     const single = judgeSheet(p, [edge(0, 'low', 1)], DEFAULT_POLICY).verdicts[0];
     expect(single.outcome).toBe('unsettled');
@@ -146,7 +146,7 @@ describe('edge counts at two ribbon widths', () => {
     wide.counts[0] = { ...wide.counts[0], settled: false, count: null, reason: 'a crossing state is not localised' };
     p.checkRibbons = [wide];
     const v = judgeSheet(p, [edge(0, 'low', 1)], DEFAULT_POLICY).verdicts[0];
-    expect(v.message).toMatch(/at ribbon width 60 the count is unsettled \(a crossing state is not localised\)/);
+    expect(v.message).toMatch(/at ribbon width 60 the count is unsettled \(a crossing state is not localised; to settle, raise numerics\.ribbon\.width/);
   });
 });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { fromArrays } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { chiralInvariants } from '../../../src/numerics/chain/chiral-winding.ts';
-import { shiftTimeOrigin } from '../../../src/numerics/chain/time-shift.ts';
+import { shiftTimeOrigin } from '../../../src/numerics/evolution/time-shift.ts';
 import { hop, sshChain, splitStepWalk, twoStepChain } from '../../support/drives/chains.ts';
 
 const sigmaZ = fromArrays([[1, 0], [0, -1]]);

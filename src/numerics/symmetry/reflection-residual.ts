@@ -18,7 +18,7 @@ import type { LatticeDrive } from '../evolution/drive.ts';
 import { segmentStartTimes } from '../evolution/drive.ts';
 import { distance, frobeniusNorm } from '../linalg/complex-matrix.ts';
 import { prepareBloch } from '../evolution/bloch.ts';
-import { shiftTimeOrigin, TIME_MATCH } from './time-shift.ts';
+import { shiftTimeOrigin, TIME_MATCH } from '../evolution/time-shift.ts';
 
 export interface ReflectionRelation {
   /** X[H]. */
@@ -29,12 +29,25 @@ export interface ReflectionRelation {
   reverseMomentum: boolean;
 }
 
-/** Momenta checked by default: the particle–hole symmetric points and four generic ones. */
-export const CHECK_MOMENTA = [0, 0.5, 0.1234, 0.3771, 0.618, 0.8529];
+/**
+ * Momenta checked by default: the time-reversal and particle–hole invariant
+ * points (s = −s modulo the zone) and generic ones (for sheets also K and K′ of
+ * a triangular Bravais lattice, s = (1/3, 2/3) and (2/3, 1/3)).
+ */
+export function checkMomenta(dimension: number): number[][] {
+  if (dimension === 0) return [[]];
+  if (dimension === 1) return [0, 0.5, 0.1234, 0.3771, 0.618, 0.8529].map((s) => [s]);
+  return [[0, 0], [0.5, 0], [0, 0.5], [0.5, 0.5], [0.1234, 0.3771], [0.618, 0.2137], [0.8529, 0.5361], [1 / 3, 2 / 3], [2 / 3, 1 / 3]];
+}
+
+/** −s in the zone [0, 1)^d. */
+export function mirrorMomentum(s: number[]): number[] {
+  return s.map((x) => (1 - x) % 1);
+}
 /** Extra samples inside a time-dependent piece. */
 const DYNAMIC_SAMPLES = 5;
 
-export function reflectionResidual(drive: LatticeDrive, t0: number, relation: ReflectionRelation, momenta = CHECK_MOMENTA): number {
+export function reflectionResidual(drive: LatticeDrive, t0: number, relation: ReflectionRelation, momenta = checkMomenta(drive.dimension)): number {
   const rotated = shiftTimeOrigin(drive, t0);
   const T = rotated.period;
   const starts = segmentStartTimes(rotated);
@@ -44,9 +57,8 @@ export function reflectionResidual(drive: LatticeDrive, t0: number, relation: Re
   let worst = 0, scale = 0;
   const kickTimesMatch = kicks.every((i, j) => Math.abs(starts[i] + starts[kicks[kicks.length - 1 - j]] - T) <= 1e4 * TIME_MATCH * T);
   for (const s of momenta) {
-    const sMirror = relation.reverseMomentum ? (1 - s) % 1 : s;
-    const here = prepareBloch(rotated, dimensionVector(rotated, s));
-    const there = relation.reverseMomentum ? prepareBloch(rotated, dimensionVector(rotated, sMirror)) : here;
+    const here = prepareBloch(rotated, s);
+    const there = relation.reverseMomentum ? prepareBloch(rotated, mirrorMomentum(s)) : here;
     for (const tau of times) {
       const a = here.at(tau), b = there.at(T - tau);
       scale = Math.max(scale, frobeniusNorm(a));
@@ -70,10 +82,6 @@ function mismatch(x: ComplexMatrix, b: ComplexMatrix, sign: 1 | -1): number {
     s += dr * dr + di * di;
   }
   return Math.sqrt(s);
-}
-
-function dimensionVector(drive: LatticeDrive, s: number): number[] {
-  return drive.dimension === 0 ? [] : [s];
 }
 
 function samplingTimes(drive: LatticeDrive, starts: number[], positive: number[]): number[] {

@@ -1,5 +1,5 @@
 /**
- * Residuals of declared symmetries of a driven chain (units: Frobenius norm
+ * Residuals of declared symmetries of a driven chain or sheet (units: Frobenius norm
  * relative to max(1, ‖H‖_F)); a claim resting on a symmetry whose residual
  * exceeds the tolerance is reported as "symmetry broken" with the residual.
  *
@@ -18,11 +18,10 @@ import { adjoint, multiply, frobeniusNorm, distance, zeros } from '../linalg/com
 import { floquetOperator } from '../evolution/propagator.ts';
 import { prepareBloch } from '../evolution/bloch.ts';
 import { segmentStartTimes } from '../evolution/drive.ts';
-import { CHECK_MOMENTA } from './reflection-residual.ts';
+import { checkMomenta, mirrorMomentum } from './reflection-residual.ts';
 import type { ReflectionRelation } from './reflection-residual.ts';
 import { chiralRelation, findSymmetricFrames } from './symmetric-frames.ts';
-import { shiftTimeOrigin } from './time-shift.ts';
-import { chiralFloquetDefect } from './chiral-winding.ts';
+import { shiftTimeOrigin } from '../evolution/time-shift.ts';
 
 export interface SymmetryResidual {
   symmetry: 'chiral' | 'particle-hole' | 'time-reversal';
@@ -34,6 +33,20 @@ export interface SymmetryResidual {
   frameTime?: number;
   tolerance: number;
   holds: boolean;
+}
+
+/** ‖Γ U Γ† − U†‖_F. */
+export function chiralFloquetDefect(u: ComplexMatrix, gamma: ComplexMatrix): number {
+  const g = multiply(multiply(gamma, u), adjoint(gamma));
+  const n = u.rows;
+  let s = 0;
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      const dr = g.re[i * n + j] - u.re[j * n + i], di = g.im[i * n + j] + u.im[j * n + i];
+      s += dr * dr + di * di;
+    }
+  }
+  return Math.sqrt(s);
 }
 
 export function conjugateBy(u: ComplexMatrix, h: ComplexMatrix, conjugate: boolean): ComplexMatrix {
@@ -50,16 +63,16 @@ export function chiralResidual(drive: LatticeDrive, gamma: ComplexMatrix, tolera
   const t0 = search.frames[0] ?? search.bestCandidate;
   const rotated = shiftTimeOrigin(drive, t0);
   let floquet = 0;
-  for (const s of CHECK_MOMENTA) floquet = Math.max(floquet, chiralFloquetDefect(floquetOperator(rotated, [s], propagator).operator, gamma));
+  for (const s of checkMomenta(drive.dimension)) floquet = Math.max(floquet, chiralFloquetDefect(floquetOperator(rotated, s, propagator).operator, gamma));
   return { symmetry: 'chiral', hamiltonian: search.residual, floquet, frameTime: t0, tolerance, holds: search.residual <= tolerance && floquet <= 1e3 * tolerance };
 }
 
 export function particleHoleResidual(drive: LatticeDrive, uc: ComplexMatrix, tolerance = 1e-10, propagator?: PropagatorOptions): SymmetryResidual {
   const starts = segmentStartTimes(drive);
   let worst = 0, scale = 0, floquet = 0;
-  for (const s of CHECK_MOMENTA) {
-    const here = prepareBloch(drive, [s]);
-    const there = prepareBloch(drive, [(1 - s) % 1]);
+  for (const s of checkMomenta(drive.dimension)) {
+    const here = prepareBloch(drive, s);
+    const there = prepareBloch(drive, mirrorMomentum(s));
     drive.segments.forEach((seg, i) => {
       const times = seg.duration === 0 ? [starts[i]] : [0.21, 0.5, 0.77].map((f) => starts[i] + f * seg.duration);
       for (const t of times) {
@@ -71,8 +84,8 @@ export function particleHoleResidual(drive: LatticeDrive, uc: ComplexMatrix, tol
         worst = Math.max(worst, Math.sqrt(d));
       }
     });
-    const u = floquetOperator(drive, [s], propagator).operator;
-    const um = floquetOperator(drive, [(1 - s) % 1], propagator).operator;
+    const u = floquetOperator(drive, s, propagator).operator;
+    const um = floquetOperator(drive, mirrorMomentum(s), propagator).operator;
     floquet = Math.max(floquet, distance(conjugateBy(uc, u, true), um));
   }
   const hamiltonian = worst / Math.max(1, scale);
@@ -84,9 +97,9 @@ export function timeReversalResidual(drive: LatticeDrive, ut: ComplexMatrix, tol
   const t0 = search.frames[0] ?? search.bestCandidate;
   const rotated = shiftTimeOrigin(drive, t0);
   let floquet = 0;
-  for (const s of CHECK_MOMENTA) {
-    const u = floquetOperator(rotated, [s], propagator).operator;
-    const um = floquetOperator(rotated, [(1 - s) % 1], propagator).operator;
+  for (const s of checkMomenta(drive.dimension)) {
+    const u = floquetOperator(rotated, s, propagator).operator;
+    const um = floquetOperator(rotated, mirrorMomentum(s), propagator).operator;
     floquet = Math.max(floquet, distance(conjugateBy(ut, u, true), adjoint(um)));
   }
   return { symmetry: 'time-reversal', hamiltonian: search.residual, floquet, frameTime: t0, tolerance, holds: search.residual <= tolerance && floquet <= 1e3 * tolerance };

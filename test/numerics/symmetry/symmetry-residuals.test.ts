@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { fromArrays, identity } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { nambuParticleHole } from '../../../src/numerics/evolution/bdg.ts';
-import { chiralResidual, particleHoleResidual, timeReversalResidual } from '../../../src/numerics/chain/symmetry-residuals.ts';
+import { chiralResidual, particleHoleResidual, timeReversalResidual } from '../../../src/numerics/symmetry/symmetry-residuals.ts';
 import { analyseChain } from '../../../src/numerics/chain/chain-analysis.ts';
 import { hop, kickedKitaevChain, twoStepChain, splitStepWalk } from '../../support/drives/chains.ts';
 

@@ -18,8 +18,8 @@
  *   This places t₀ in the middle of the kick group, which is what a symmetric
  *   frame through a kick needs.
  */
-import type { DriveSegment, DriveTerm, LatticeDrive, Modulation } from '../evolution/drive.ts';
-import { angularFrequency, segmentStartTimes } from '../evolution/drive.ts';
+import type { DriveSegment, DriveTerm, LatticeDrive, Modulation } from './drive.ts';
+import { angularFrequency, segmentStartTimes } from './drive.ts';
 
 /** Times closer than this fraction of T are treated as equal. */
 export const TIME_MATCH = 1e-12;
