@@ -171,9 +171,10 @@ export function quantityName(id: string, context: QuantityContext = {}): Quantit
 }
 
 /** A claimed or computed value as text: yes/no for booleans, − for negatives, — for none. */
-export function valueText(value: number | boolean | null | undefined, digits = 4): string {
+export function valueText(value: number | boolean | string | null | undefined, digits = 4): string {
   if (value === null || value === undefined) return '—';
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
+  if (typeof value === 'string') return value;
   if (Number.isInteger(value)) return minus(String(value));
   if (Math.abs(value) !== 0 && (Math.abs(value) < 1e-3 || Math.abs(value) >= 1e5)) {
     const [mantissa, exponent] = value.toExponential(2).split('e');

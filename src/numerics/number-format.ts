@@ -23,3 +23,16 @@ export function formatNumber(x: number): string {
   return trimZeros(a >= 1e-2 && a < 1e4 ? x.toPrecision(3) : x.toExponential(2));
 }
 
+/**
+ * A computed value that should be an integer, with enough digits to see its
+ * distance from the integer: seven decimals ("0.9999931", "-1.9999998"); a
+ * value within 5·10⁻⁸ of zero is written in exponent form ("-4.3e-8"), never
+ * as "-0.0000000".
+ */
+export function formatRawValue(x: number | null): string {
+  if (x === null || Number.isNaN(x)) return '—';
+  if (!Number.isFinite(x)) return formatNumber(x);
+  const fixed = x.toFixed(7);
+  if (/^-?0\.0+$/.test(fixed)) return x === 0 ? '0' : formatNumber(x);
+  return fixed;
+}

@@ -21,6 +21,7 @@ import { residualEntries } from './symmetry-verdicts.ts';
 import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.ts';
 import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
 import { DEFAULT_POLICY } from './policy.ts';
+import { formatNumber } from './format.ts';
 
 
 /**
@@ -69,7 +70,7 @@ const DEFAULT_Z2_TOLERANCE = 0.01;
 /** A Z₂ index from a sign with a margin, as an IntegerEstimate (no refinement: the margin is the evidence). */
 function z2Estimate(sign: 1 | -1 | null, margin: number, tolerance: number, gridSize: number, integerTolerance = DEFAULT_Z2_TOLERANCE): IntegerEstimate {
   const value = sign === -1 ? 1 : 0;
-  const caveat = sign === null ? `the Pfaffian-sign margin ${margin.toPrecision(3)} is below its tolerance ${tolerance.toPrecision(3)}` : undefined;
+  const caveat = sign === null ? `the Pfaffian-sign margin ${formatNumber(margin)} is below its tolerance ${formatNumber(tolerance)}` : undefined;
   return integerEstimate(sign === null ? NaN : value, integerTolerance, [gridSize], [{ grid: [gridSize], value: sign === null ? NaN : value }], sign !== null, caveat);
 }
 

@@ -15,7 +15,7 @@ import { emptyCertificate } from './certificate.ts';
 import type { Certificate } from './certificate.ts';
 import type { CountObservation, SettledInteger } from './evidence.ts';
 import { countAtTwoSizes, countEvidence, gapReason, judgeEstimate, STAGE_REMEDIES, withRemedy } from './evidence.ts';
-import { formatQuasienergy } from './format.ts';
+import { formatGrid, formatQuasienergy } from './format.ts';
 import type { VerdictPolicy } from './policy.ts';
 import type { PortraitEntry } from './sheet-verdicts.ts';
 import { entry, findGap, gapEvidence, minimalGapVerdict, noGapReason, notApplicable, sameLabel } from './sheet-verdicts.ts';
@@ -94,7 +94,8 @@ function invariantEvidence(view: ChainView, label: number, policy: VerdictPolicy
   if (fromFrames) {
     // ν₀ = (ν′ + ν″)/2 and ν_π = (ν′ − ν″)/2 are only as stable as the frame windings they come from.
     for (const { frame, ev: fe } of frameEvidence(view, policy)) {
-      ev.certificate.refinement.push(...fe.certificate.refinement.map((step) => ({ grid: [...step.grid], value: step.value })));
+      const symbol = frameSymbol(frame.name);
+      ev.certificate.refinement.push(...fe.certificate.refinement.map((step) => ({ grid: [...step.grid], value: step.value, label: `${symbol}: ${step.label ?? formatGrid(step.grid)}` })));
       if (!fe.settled) {
         const why = withRemedy(`${frameSymbol(frame.name)} (frame t₀ = ${Number(frame.time.toPrecision(6))}) is unsettled`, STAGE_REMEDIES.frames);
         ev.reasons.push(why);

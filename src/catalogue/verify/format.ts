@@ -1,7 +1,7 @@
 /** Words and numbers in verdict messages, written one way everywhere. */
-import { formatNumber } from '../../numerics/number-format.ts';
+import { formatNumber, formatRawValue } from '../../numerics/number-format.ts';
 
-export { formatNumber };
+export { formatNumber, formatRawValue };
 
 /** A quasienergy in units of π/T as people say it: "ε = 0", "ε = π/T", "ε = 0.5 π/T". */
 export function formatQuasienergy(label: number): string {
@@ -9,20 +9,6 @@ export function formatQuasienergy(label: number): string {
   if (x === 0) return 'ε = 0';
   if (Math.abs(Math.abs(x) - 1) < 1e-12) return 'ε = π/T';
   return `ε = ${Number(x.toPrecision(4))} π/T`;
-}
-
-/**
- * A computed value that should be an integer, with enough digits to see its
- * distance from the integer: seven decimals ("0.9999931", "-1.9999998"); a
- * value within 5·10⁻⁸ of zero is written in exponent form ("-4.3e-8"), never
- * as "-0.0000000".
- */
-export function formatRawValue(x: number | null): string {
-  if (x === null || Number.isNaN(x)) return '—';
-  if (!Number.isFinite(x)) return formatNumber(x);
-  const fixed = x.toFixed(7);
-  if (/^-?0\.0+$/.test(fixed)) return x === 0 ? '0' : formatNumber(x);
-  return fixed;
 }
 
 /** A grid as people write it: [24, 24] → "24²", [24, 24, 96] → "24²×96", [128] → "128". */

@@ -168,10 +168,10 @@ function chernEvidence(p: SheetPortrait, band: BandGroupReport, policy: VerdictP
   const c = band.chern;
   if (c) {
     ev.certificate.notes.push(
-      `largest plaquette flux ${c.maxPlaquetteFlux.toPrecision(3)} rad (bound ${c.fluxThreshold.toPrecision(3)}), smallest link modulus ${c.minimalLinkModulus.toPrecision(3)}`,
+      `largest plaquette flux ${formatNumber(c.maxPlaquetteFlux)} rad (bound ${formatNumber(c.fluxThreshold)}), smallest link modulus ${formatNumber(c.minimalLinkModulus)}`,
     );
   }
-  if (band.touching) ev.certificate.notes.push(`${band.branches} touching branches grouped (smallest internal gap ${band.minimalInternalGap.toPrecision(3)} π/T)`);
+  if (band.touching) ev.certificate.notes.push(`${band.branches} touching branches grouped (smallest internal gap ${formatNumber(band.minimalInternalGap)} π/T)`);
   return ev;
 }
 
@@ -341,12 +341,12 @@ export function minimalGapVerdict(claim: NormalizedClaim & { kind: 'minimal-gap'
   const base = { claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.gap, claimed: claim.value, estimate: g.minimalGap, certificate };
   const what = `The minimal gap at ${formatQuasienergy(claim.gap)}`;
   if (!g.open && claim.value > g.tolerance && g.minimalGap <= g.tolerance) {
-    return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is closed (${g.minimalGap.toPrecision(3)} π/T), but the file claims ${claim.value} π/T.`, hint: 'the parameter point may lie on a phase boundary' };
+    return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is closed (${formatNumber(g.minimalGap)} π/T), but the file claims ${claim.value} π/T.`, hint: 'the parameter point may lie on a phase boundary' };
   }
   if (certificate.residual <= tolerance) {
-    return { ...base, outcome: 'confirmed', computed: g.minimalGap, message: `${what} is ${g.minimalGap.toPrecision(4)} π/T, within ${tolerance.toPrecision(3)} of the claimed ${claim.value} π/T.`, hint: null };
+    return { ...base, outcome: 'confirmed', computed: g.minimalGap, message: `${what} is ${formatNumber(g.minimalGap)} π/T (certified ≥ ${formatNumber(g.lowerBound)}), within ${formatNumber(tolerance)} of the claimed ${claim.value} π/T.`, hint: null };
   }
-  return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is ${g.minimalGap.toPrecision(4)} π/T, but the file claims ${claim.value} π/T (tolerance ${tolerance.toPrecision(3)}).`, hint: null };
+  return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is ${formatNumber(g.minimalGap)} π/T (certified ≥ ${formatNumber(g.lowerBound)}), but the file claims ${claim.value} π/T (tolerance ${formatNumber(tolerance)}).`, hint: null };
 }
 
 export function notApplicable(claim: NormalizedClaim, where: string): Verdict {

@@ -22,6 +22,7 @@ import { defaultChainLength, openChainSpectrum } from './open-chain.ts';
 import { chiralFromTimeReversalAndParticleHole } from '../symmetry/symmetry-residuals.ts';
 import { declaredSymmetryReports } from '../symmetry/declared-symmetries.ts';
 import { declaredSymmetryClass } from '../symmetry/altland-zirnbauer.ts';
+import { formatRawValue } from '../number-format.ts';
 
 export interface ChainSymmetries {
   chiral?: ComplexMatrix;
@@ -98,7 +99,7 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   consistency.push({
     name: 'det-winding vanishes',
     holds: det.winding.converged && det.winding.nearest === 0,
-    detail: `winding of det U(k, T) = ${det.winding.raw.toFixed(6)} on ${det.points} momenta (0 for any Hamiltonian drive)`,
+    detail: `winding of det U(k, T) = ${formatRawValue(det.winding.raw)} on ${det.points} momenta (0 for any Hamiltonian drive)`,
   });
   if (chiral?.status === 'computed' && chiral.halfPeriod) {
     // Two methods for the same invariant where both apply: a disagreement is reported, never smoothed over.

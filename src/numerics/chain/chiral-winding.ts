@@ -42,6 +42,7 @@ import { halfPeriodInvariants } from './half-period-winding.ts';
 import type { FrameSearchOptions, SymmetricFrameSearch } from '../symmetry/symmetric-frames.ts';
 import { phaseWinding } from './phase-winding.ts';
 import type { PhaseWindingOptions, PhaseWindingResult } from './phase-winding.ts';
+import { formatNumber } from '../number-format.ts';
 
 export interface ChiralWindingOptions {
   frames?: FrameSearchOptions;
@@ -140,7 +141,7 @@ export function chiralInvariants(drive: LatticeDrive, gamma: ComplexMatrix, opti
         frames: [],
         notes,
         reason:
-          `the first symmetric time listed, t₀ = ${time(declared[0])}, is not a symmetric frame (residual ${residual.toExponential(2)} > ${tolerance.toExponential(0)}); ` +
+          `the first symmetric time listed, t₀ = ${time(declared[0])}, is not a symmetric frame (residual ${formatNumber(residual)} > ${formatNumber(tolerance)}); ` +
           `${found}; to settle, list a symmetric frame first in claims.symmetries.chiral.symmetricTimes`,
       };
     }
@@ -159,7 +160,7 @@ export function chiralInvariants(drive: LatticeDrive, gamma: ComplexMatrix, opti
         frameSource,
         frames: [],
         notes,
-        reason: `no symmetric time frame: best residual ${search.residual.toExponential(2)} at t₀ = ${search.bestCandidate.toPrecision(6)} (tolerance ${search.tolerance.toExponential(1)})`,
+        reason: `no symmetric time frame: best residual ${formatNumber(search.residual)} at t₀ = ${time(search.bestCandidate)} (tolerance ${formatNumber(search.tolerance)})`,
       };
     }
     times = search.frames;
@@ -175,7 +176,7 @@ export function chiralInvariants(drive: LatticeDrive, gamma: ComplexMatrix, opti
       raw,
       Math.max(a.tolerance, b.tolerance),
       [Math.max(a.grid[0], b.grid[0])],
-      [{ grid: [a.grid[0], b.grid[0]], value: raw }],
+      [{ grid: [a.grid[0], b.grid[0]], value: raw, label: `(ν′ ${sign > 0 ? '+' : '−'} ν″)/2 from frames on ${a.grid[0]} and ${b.grid[0]} momenta` }],
       a.converged && b.converged,
       caveats.length > 0 ? caveats.join('; ') : undefined,
     );
