@@ -6,6 +6,7 @@
  */
 import type { Certificate } from '../catalogue/records/model-record.ts';
 import { quasienergyText, valueText } from '../catalogue/vocabulary.ts';
+import { formatNumber, formatRawValue } from '../catalogue/verify/format.ts';
 
 export interface CertificateLine {
   term: string;
@@ -26,7 +27,7 @@ function gridText(stage: string, grid: number[]): string {
   if (grid.length === 0) return '—';
   switch (stage) {
     case 'winding':
-      return grid.length >= 3 ? `k grid ${grid[0]} × ${grid[1]}, ${grid[2]} time slices` : `k grid ${grid.join(' × ')}`;
+      return `adaptive quadrature, ${grid[0]} density evaluations`;
     case 'chern':
       return `k grid ${grid.join(' × ')}`;
     case 'ribbon':
@@ -49,10 +50,10 @@ export function certificateView(c: Certificate): CertificateView {
     lines.push({ term: 'computed on', detail: gridText(c.stage, c.grid), passed: null });
     summary.push(gridText(c.stage, c.grid));
   }
-  if (c.raw !== null) lines.push({ term: 'value before rounding', detail: valueText(c.raw, 10), passed: null });
+  if (c.raw !== null) lines.push({ term: 'value before rounding', detail: formatRawValue(c.raw), passed: null });
   if (c.residual !== null) {
     const passed = c.residualTolerance === null ? null : c.residual <= c.residualTolerance;
-    const text = `${valueText(c.residual)}${c.residualTolerance === null ? '' : ` ${passed ? '≤' : '>'} tolerance ${valueText(c.residualTolerance)}`}`;
+    const text = `${formatNumber(c.residual)}${c.residualTolerance === null ? '' : ` ${passed ? '≤' : '>'} tolerance ${formatNumber(c.residualTolerance)}`}`;
     // An integer estimate's residual is its distance from the integer; otherwise (symmetries, gaps) a plain residual.
     const integer = c.raw !== null;
     const term = integer ? 'distance from the nearest integer' : c.stage === 'gaps' ? 'difference from the claimed value' : 'residual';
@@ -60,18 +61,18 @@ export function certificateView(c: Certificate): CertificateView {
     summary.push(`${integer ? '|x − n|' : c.stage === 'gaps' ? '|computed − claimed|' : 'residual'} = ${text.replace(' tolerance', '')}`);
   }
   if (c.refinement.length > 0) {
-    lines.push({ term: 'refinement (coarsest first)', detail: c.refinement.map((step) => `${gridText(c.stage, step.grid)}: ${valueText(step.value, 10)}`), passed: null });
+    lines.push({ term: 'refinement (coarsest first)', detail: c.refinement.map((step) => `${step.label ?? gridText(c.stage, step.grid)} → ${formatRawValue(step.value)}`), passed: null });
   }
   for (const g of c.gaps) {
     lines.push({
       term: `gap at ε = ${quasienergyText(g.gap)}`,
-      detail: `smallest ${valueText(g.minimalGap)} π/T${coordinates(g.at)}; must exceed ${valueText(g.tolerance)} π/T: ${g.open ? 'open' : 'not open'}`,
+      detail: `smallest ${formatNumber(g.minimalGap)} π/T${coordinates(g.at)}, certified ≥ ${formatNumber(g.lowerBound ?? 0)} π/T over the zone; must exceed ${formatNumber(g.tolerance)} π/T: ${g.open ? 'open' : 'not open'}`,
       passed: g.open,
     });
   }
   for (const s of c.symmetry) {
     const passed = s.residual !== null && s.residual <= s.tolerance;
-    lines.push({ term: s.name, detail: `residual ${valueText(s.residual)} ${passed ? '≤' : '>'} tolerance ${valueText(s.tolerance)}`, passed });
+    lines.push({ term: s.name, detail: `residual ${s.residual === null ? '—' : formatNumber(s.residual)} ${passed ? '≤' : '>'} tolerance ${formatNumber(s.tolerance)}`, passed });
   }
   for (const note of c.notes) lines.push({ term: 'note', detail: note, passed: null });
   lines.push({ term: 'engine stage', detail: c.stage, passed: null });

@@ -24,6 +24,7 @@ import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
 import { followableGridAdvice } from './grid-advice.ts';
 import { BAND_INTEGER_ACCURACY } from '../../numerics/sheet/sheet-analysis.ts';
 import { formatNumber } from './format.ts';
+import { GAP_TOLERANCE_LIMIT } from './policy.ts';
 
 export interface PointResult {
   dimension: number;
@@ -138,7 +139,7 @@ export function loosenedTolerances(hints: NumericsHints | undefined): string[] {
     notes.push(`the model loosens numerics.tolerances.integer to ${g(t.integer)} (default 1e-6 for Chern numbers, gap winding numbers and chain windings)`);
   }
   if (t.gap !== undefined && t.gap < TOLERANCE_DEFAULTS.gap) {
-    notes.push(`the model loosens numerics.tolerances.gap to ${g(t.gap)} π/T (default ${g(TOLERANCE_DEFAULTS.gap)} π/T; hard lower limit 1e-5 π/T)`);
+    notes.push(`the model loosens numerics.tolerances.gap to ${g(t.gap)} π/T (default ${g(TOLERANCE_DEFAULTS.gap)} π/T; hard lower limit ${g(GAP_TOLERANCE_LIMIT)} π/T)`);
   }
   if (t.propagator !== undefined) {
     const derived = verdictPropagatorTolerance(t.gap ?? TOLERANCE_DEFAULTS.gap, t.integer ?? BAND_INTEGER_ACCURACY) / Math.PI;

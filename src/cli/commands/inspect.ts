@@ -27,7 +27,7 @@ function table(rows: string[][]): string[] {
 export function certificateLines(c: Certificate): string[] {
   const parts: string[] = [];
   const n = (x: number | null) => (x === null ? '—' : formatNumber(x));
-  if (c.grid.length > 0) parts.push(`grid ${formatGrid(c.grid)}`);
+  if (c.grid.length > 0) parts.push(c.stage === 'winding' ? `adaptive quadrature, ${c.grid[0]} evaluations` : `grid ${formatGrid(c.grid)}`);
   if (c.residual !== null) parts.push(`|x − round x| ${n(c.residual)} (tol ${n(c.residualTolerance)})`);
   for (const g of c.gaps) parts.push(`gap at ${q(g.gap)} ${n(g.minimalGap)} (certified ≥ ${n(g.lowerBound ?? 0)}, tol ${n(g.tolerance)}${g.open ? '' : ', not open'})`);
   for (const s of c.symmetry) parts.push(`${s.name} ${n(s.residual)} (tol ${n(s.tolerance)})`);

@@ -88,7 +88,7 @@ describe('chain verdicts', () => {
     const [gamma, nu0, ends] = verdicts;
     // The policy floor 1e-8 applies when the engine's tolerance is tighter.
     expect(gamma).toMatchObject({ kind: 'symmetry', pointer: '/claims/symmetries/chiral/operator', outcome: 'contradicted', claimed: true, computed: false });
-    expect(gamma.message).toContain('symmetry broken: ‖ΓH(t₀+s)Γ† + H(t₀−s)‖ = 0.185 > tolerance 1e-8 (max over k and s, best frame t₀ = 0.25); ‖ΓUΓ† − U†‖ = 1e-3 > tolerance 1e-8');
+    expect(gamma.message).toContain('symmetry broken: ‖ΓH(t₀+s)Γ† + H(t₀−s)‖ = 0.185 > tolerance 1×10⁻⁸ (max over k and s, best frame t₀ = 0.25); ‖ΓUΓ† − U†‖ = 0.001 > tolerance 1×10⁻⁸');
     expect(gamma.certificate.residual).toBe(0.185);
     expect(nu0).toMatchObject({ outcome: 'contradicted', computed: null });
     expect(nu0.message).toMatch(/^The invariant of the gap at ε = 0 is not defined, symmetry broken: ‖ΓH\(t₀\+s\)Γ† \+ H\(t₀−s\)‖ = 0\.185 > tolerance/);

@@ -128,7 +128,7 @@ describe('verification of purpose-built models', () => {
     for (const claim of ['gap-0/invariant', 'gap-1/invariant']) {
       const v = verdict('two-step-chain-onsite', claim);
       expect(v.outcome).toBe('contradicted');
-      expect(v.message).toMatch(/is not defined, symmetry broken: ‖ΓH\(t₀\+s\)Γ† \+ H\(t₀−s\)‖ = 0\.161 > tolerance 1e-8/);
+      expect(v.message).toMatch(/is not defined, symmetry broken: ‖ΓH\(t₀\+s\)Γ† \+ H\(t₀−s\)‖ = 0\.161 > tolerance 1×10⁻⁸/);
     }
     expect(verdict('two-step-chain-onsite', 'anomalous')).toMatchObject({ outcome: 'contradicted', computed: false });
     expect(r.anomalous.reason).toMatch(/^symmetry broken/);

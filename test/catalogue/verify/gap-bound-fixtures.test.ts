@@ -64,7 +64,7 @@ describe('a well-resolved small gap on the default grid (circularly driven honey
     const c = verdict('circular-honeycomb-k-gap', 'gap-0/winding').certificate;
     expect(c.residual!).toBeLessThanOrEqual(1e-6);
     expect(c.residualTolerance).toBe(1e-6);
-    expect(c.notes.join(' ')).toMatch(/adaptive Gauss–Kronrod quadrature: \d+ evaluations on \d+ cells \(first mesh \d+\), error estimate [0-9.e-]+, raw value 1\.0000000/);
+    expect(c.notes.join(' ')).toMatch(/adaptive Gauss–Kronrod quadrature: \d+ evaluations on \d+ cells \(first mesh \d+\), error estimate [0-9.×⁻⁰¹²³⁴⁵⁶⁷⁸⁹]+, raw value 1\.0000000/);
     const last = c.refinement.at(-1)!, previous = c.refinement.at(-2)!;
     expect(previous.label).toMatch(/^7-point Gauss on the final \d+ cells$/);
     expect(last.label).toMatch(/^15-point Kronrod on the final \d+ cells \(\d+ evaluations\)$/);
@@ -88,7 +88,7 @@ describe('gaps near the lower floor (Qi–Wu–Zhang, gap 3·10⁻⁴ π/T, tole
     expect(gap0.lowerBound).toBeGreaterThan(1e-4);
     expect(r.claims.every((c) => c.outcome === 'confirmed')).toBe(true);
     // The loosened tolerance is stated in every certificate.
-    expect(verdict('qwz-floor-topological', 'gap-0/winding').certificate.notes.join(' ')).toMatch(/loosens numerics\.tolerances\.gap to 1e-4 π\/T/);
+    expect(verdict('qwz-floor-topological', 'gap-0/winding').certificate.notes.join(' ')).toMatch(/loosens numerics\.tolerances\.gap to 1×10⁻⁴ π\/T/);
   });
 
   it('contradicts a flipped sign and a value of the other gap', () => {
@@ -104,7 +104,7 @@ describe('gaps near the lower floor (Qi–Wu–Zhang, gap 3·10⁻⁴ π/T, tole
   it('leaves the claim unsettled at the default tolerance and names the transition', () => {
     const v = verdict('qwz-floor-default-tolerance', 'gap-0/winding');
     expect(v.outcome).toBe('unsettled');
-    expect(v.message).toMatch(/the gap at ε = 0 is 3e-4 π\/T at s = \(0\.500, 0\.500\), not above the tolerance 1e-3 π\/T: it is small against the bandwidth, so the model sits at or near a phase transition/);
+    expect(v.message).toMatch(/the gap at ε = 0 is 3×10⁻⁴ π\/T at s = \(0\.500, 0\.500\), not above the tolerance 0\.001 π\/T: it is small against the bandwidth, so the model sits at or near a phase transition/);
     expect(v.hint).toMatch(/phase transition/);
   });
 });

@@ -48,7 +48,7 @@ describe('verdicts on a two-dimensional portrait', () => {
     const { verdicts } = judgeSheet(p, [winding(0, 1), winding(1, 1)], DEFAULT_POLICY);
     expect(verdicts[0].outcome).toBe('unsettled');
     expect(verdicts[0].certificate.gaps[0]).toMatchObject({ minimalGap: 0.04, lowerBound: 0.0008, bound: 'undecided', tolerance: 1e-3, open: false });
-    expect(verdicts[0].message).toMatch(/lies between 8e-4 and 0\.04 π\/T \(certified lower bound after 100 evaluations\), not shown above the tolerance 1e-3 π\/T; to settle, lower numerics\.tolerances\.gap to 8e-4 π\/T or below/);
+    expect(verdicts[0].message).toMatch(/lies between 8×10⁻⁴ and 0\.04 π\/T \(certified lower bound after 100 evaluations\), not shown above the tolerance 0\.001 π\/T; to settle, lower numerics\.tolerances\.gap to 8×10⁻⁴ π\/T or below/);
     expect(verdicts[0].hint).not.toMatch(/phase transition/);
     // The π gap (certified ≥ 0.48 ≫ 1e-3) is settled.
     expect(verdicts[1].outcome).toBe('confirmed');
@@ -68,12 +68,12 @@ describe('verdicts on a two-dimensional portrait', () => {
     const tiny = twoBandSheet({ gap0: 4e-4, width: 0.8 });
     const near = judgeSheet(tiny, [winding(0, 1)], DEFAULT_POLICY).verdicts[0];
     expect(near.outcome).toBe('unsettled');
-    expect(near.message).toMatch(/is 4e-4 π\/T at s = \(0\.000, 0\.000\), not above the tolerance 1e-3 π\/T: it is small against the bandwidth, so the model sits at or near a phase transition/);
+    expect(near.message).toMatch(/is 4×10⁻⁴ π\/T at s = \(0\.000, 0\.000\), not above the tolerance 0\.001 π\/T: it is small against the bandwidth, so the model sits at or near a phase transition/);
     expect(near.hint).toMatch(/phase transition/);
     // The same gap next to a flat band (width 0.01 π/T) is not small against it: the tolerance is the setting to change.
     const flat = twoBandSheet({ gap0: 4e-4, width: 0.01 });
     const v = judgeSheet(flat, [winding(0, 1)], DEFAULT_POLICY).verdicts[0];
-    expect(v.message).toMatch(/to settle, if it is a genuine gap, lower numerics\.tolerances\.gap below 4e-4 π\/T \(hard limit 1e-5\)/);
+    expect(v.message).toMatch(/to settle, if it is a genuine gap, lower numerics\.tolerances\.gap below 4×10⁻⁴ π\/T \(hard limit 1×10⁻⁵\)/);
     expect(v.hint).not.toMatch(/phase transition/);
   });
 

@@ -133,7 +133,7 @@ describe('declared frames', () => {
   it('reject a declared first time that is not a symmetric frame, naming the frames that are', () => {
     const r = chiralInvariants(twoStepChain(0.4, 2.1), sigmaZ, { declaredFrames: [0, 0.5] });
     expect(r.status).toBe('declared-frame-not-symmetric');
-    expect(r.reason).toMatch(/^the first symmetric time listed, t₀ = 0, is not a symmetric frame \(residual [0-9.e+-]+ > 1e-10\); symmetric frames exist at t₀ = 0\.25 and 0\.75; to settle, list a symmetric frame first/);
+    expect(r.reason).toMatch(/^the first symmetric time listed, t₀ = 0, is not a symmetric frame \(residual [0-9.]+ > 1×10⁻¹⁰\); symmetric frames exist at t₀ = 0\.25 and 0\.75; to settle, list a symmetric frame first/);
   });
 
   it('state which frames were used', () => {

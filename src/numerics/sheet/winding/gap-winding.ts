@@ -289,8 +289,8 @@ export function gapWindingNumbers(drive: LatticeDrive, gapLabels: number[], opti
       // The last checkpoint is replaced by the nested pair on the final cells.
       const h = history[gap];
       if (h.length > 0 && h[h.length - 1].grid[0] === result.evaluations) h.pop();
-      h.push({ grid: [result.evaluations, 7], value: result.gaussValues[j] * scale, label: `7-point Gauss on the final ${result.cells} cells` });
-      h.push({ grid: [result.evaluations, 15], value: values[gap], label: `15-point Kronrod on the final ${result.cells} cells (${result.evaluations} evaluations)` });
+      h.push({ grid: [result.evaluations], value: result.gaussValues[j] * scale, label: `7-point Gauss on the final ${result.cells} cells` });
+      h.push({ grid: [result.evaluations], value: values[gap], label: `15-point Kronrod on the final ${result.cells} cells (${result.evaluations} evaluations)` });
       quadrature[gap] = {
         evaluations: result.evaluations + time.evaluations,
         cells: result.cells,

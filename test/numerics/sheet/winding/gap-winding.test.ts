@@ -278,7 +278,7 @@ describe('static Qi–Wu–Zhang model run as a drive (Qi, Wu, Zhang, PRB 74, 08
     const firstCells = Number(/(\d+) evaluations, (\d+) cells/.exec(full.history[0].label ?? '')?.[2]);
     const w0 = byGap(gapWindingNumbers(qwzDrive(1.999, period), [0], { evaluations: (firstCells + 2) * 225 }), 0);
     expect(w0.converged).toBe(false);
-    expect(w0.caveat).toMatch(/^did not converge: the quadrature error estimate [^ ]+ exceeds the tolerance 1e-6 after \d+ evaluations \(the budget\).*; to settle, raise numerics\.windingEvaluations$/);
+    expect(w0.caveat).toMatch(/^did not converge: the quadrature error estimate [^ ]+ exceeds the tolerance 1×10⁻⁶ after \d+ evaluations \(the budget\).*; to settle, raise numerics\.windingEvaluations$/);
     // The history ends with the nested pair on the final cells, Gauss first.
     expect(w0.history.at(-2)?.label).toMatch(/^7-point Gauss on the final \d+ cells$/);
     expect(w0.history.at(-1)?.label).toMatch(/^15-point Kronrod on the final \d+ cells/);
