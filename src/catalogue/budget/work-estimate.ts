@@ -22,9 +22,10 @@
  *          Chern      the refinement grid doubles from max(kGrid) while it stays
  *                     within 128 (worst case: it goes all the way), cached samples
  *                     reused, CHERN_POINT_NS per point for the link variables;
- *          winding    WINDING_POINTS momenta (grids 16, 24, 36, … until the value
- *                     settles) of WINDING_NODES_PER_SEGMENT time nodes per segment,
- *                     each node about one unit;
+ *          winding    WINDING_POINTS density evaluations (adaptive Gauss–Kronrod
+ *                     cells, all gaps together; at most numerics.windingEvaluations)
+ *                     of WINDING_NODES_PER_SEGMENT time nodes per segment, each node
+ *                     about one unit; the cells hold little memory;
  *          ribbon     one evaluation of the (width·n)-state ribbon per momentum
  *                     (numerics.ribbon, default 24 cells, 200 momenta), once per
  *                     edge direction the claims name, and again at 1.5× the width
@@ -67,10 +68,12 @@ export const SMALL_MATRIX = 100;
 export const BAND_POINT_NS = 100_000;
 /** Per Chern-grid momentum besides its evaluation: overlap determinants of the link variables. */
 export const CHERN_POINT_NS = 20_000;
-/** Momenta the winding-number integral typically needs over its refinement levels (16², 24², 36², 54² and focus points). */
-export const WINDING_POINTS = 8_000;
+/** Density evaluations the adaptive winding quadrature typically needs for the gaps of a model (measured 4 000–53 000 per gap, docs/benchmarks.md). */
+export const WINDING_POINTS = 20_000;
 /** Time nodes per segment and momentum in the winding-number integral (Gauss–Legendre, about one per radian). */
 export const WINDING_NODES_PER_SEGMENT = 10;
+/** Bytes per cell of the adaptive winding quadrature (rectangle, sums and error estimates per gap, heap entry). */
+export const WINDING_CELL_BYTES = 400;
 /** Bytes per entry of a Floquet sample (eigenvectors and their copies, 16 bytes per complex number). */
 export const SAMPLE_BYTES_PER_ENTRY = 32;
 /** Bytes per Floquet sample besides its entries (typed arrays, object headers, cache maps). */
@@ -91,7 +94,7 @@ export const DEFAULTS = {
   sheetGrid: 24,
   chainGrid: 128,
   chernMaxGrid: 128,
-  windingGrid: 124,
+  windingCells: 2_000,
   ribbonWidth: 24,
   ribbonMomenta: 200,
   chainLength: 160,
@@ -201,11 +204,13 @@ function sheetStages(doc: ModelDocument, shape: Shape, bulkOnly: { chern: boolea
   }
   if (bulkOnly === null || bulkOnly.winding) {
     const nodes = WINDING_NODES_PER_SEGMENT * shape.segments;
+    const points = Math.min(WINDING_POINTS, doc.numerics?.windingEvaluations ?? Infinity);
     stages.push({
       stage: 'gap winding numbers',
-      seconds: WINDING_POINTS * nodes * unitNs(n) * 1e-9,
-      memoryBytes: bandBytes + HEAP_SLACK * DEFAULTS.windingGrid ** 2 * sampleBytes(n),
-      detail: `about ${WINDING_POINTS} momenta × ${nodes} time nodes × ${n}-state operators`,
+      seconds: points * nodes * unitNs(n) * 1e-9,
+      // One momentum at a time: the cells keep their sums only, each evaluation a few matrices per time piece.
+      memoryBytes: bandBytes + HEAP_SLACK * DEFAULTS.windingCells * WINDING_CELL_BYTES,
+      detail: `about ${points} density evaluations × ${nodes} time nodes × ${n}-state operators`,
       drivers: structureDrivers(shape),
     });
   }

@@ -55,7 +55,7 @@ export function gapReason(g: GapEvidence, what = 'the gap'): string {
 /** What settles a quantity of each engine stage when its own reason names nothing (docs/model-format.md, Numerics hints). */
 export const STAGE_REMEDIES: Record<string, string> = {
   winding: 'raise numerics.windingEvaluations (the budget of the adaptive quadrature)',
-  chern: 'raise numerics.kGrid (the Chern refinement starts at its largest entry and doubles twice)',
+  chern: 'raise numerics.kGrid up to 64 (the Chern refinement doubles it up to 128 × 128), or move the parameter point away from a nearly closed gap',
   invariant: 'move the parameter point away from the gap closing the message names; the invariant of a gap that stays open is computed on its own (half-period method)',
   frames: 'move the parameter point away from the gap closing the message names; the frame windings need both gaps open',
   majorana: 'move the parameter point away from the gap closing at the particle–hole symmetric momentum',

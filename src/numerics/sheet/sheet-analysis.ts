@@ -134,8 +134,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   const propagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, integerTolerance) };
   // Edge counts are counts, not residual-tested integers: only the gap part of the rule applies to ribbons.
   const ribbonPropagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, 0.01) };
-  // The refinement doubles from the band grid at least twice, so raising numerics.kGrid always buys refinement.
-  const chernOptions: ChernOptions = { initialGrid: Math.max(...grid), maxGrid: Math.max(128, 4 * Math.max(...grid)), ...options.chern };
+  const chernOptions: ChernOptions = { initialGrid: Math.max(...grid), ...options.chern };
   const sampler = new FloquetSampler(drive, { propagator });
 
   let t = clock();
