@@ -10,26 +10,19 @@
  * 125143 (2014)). On θ₁ + θ₂ = π the gap at π/T closes at k = 0 (U(0) = e^{−i(θ₁+θ₂)σ_x} = −1)
  * while the gap at 0 stays open, so ν₀ is still defined (half-period method).
  */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { verifyCatalogue, type CatalogueReport } from '../../../src/catalogue/verify/catalogue.ts';
 import { recordLookup } from './record-lookup.ts';
+import { writeVariant } from './model-variants.ts';
 
-const demo = JSON.parse(readFileSync('models/two-step-chain.json', 'utf8'));
 let report: CatalogueReport;
 const { record, verdict } = recordLookup(() => report);
 
 /** A copy of the demo chain with another id, without its sweep, changed by `edit`. */
-function variant(dir: string, id: string, edit: (doc: typeof demo) => void): void {
-  const doc = structuredClone(demo);
-  doc.id = id;
-  delete doc.$schema;
-  delete doc.sweeps;
-  edit(doc);
-  writeFileSync(path.join(dir, `${id}.json`), `${JSON.stringify(doc, null, 2)}\n`);
-}
+const variant = (dir: string, id: string, edit: (doc: Record<string, any>) => void) => writeVariant(dir, 'models/two-step-chain.json', id, edit);
 
 beforeAll(async () => {
   const dir = mkdtempSync(path.join(tmpdir(), 'strobe-frames-'));

@@ -10,33 +10,25 @@
  * class AIII, not the BDI it would be with T = K declared (Altland–Zirnbauer table,
  * test/numerics/symmetry/altland-zirnbauer.test.ts).
  */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { verifyCatalogue, type CatalogueReport } from '../../../src/catalogue/verify/catalogue.ts';
 import { recordLookup } from './record-lookup.ts';
+import { writeVariant } from './model-variants.ts';
 
 let report: CatalogueReport;
 const { verdict } = recordLookup(() => report);
-
-function write(dir: string, source: string, id: string, edit: (doc: Record<string, any>) => void): void {
-  const doc = JSON.parse(readFileSync(source, 'utf8'));
-  doc.id = id;
-  delete doc.$schema;
-  delete doc.sweeps;
-  edit(doc);
-  writeFileSync(path.join(dir, `${id}.json`), `${JSON.stringify(doc, null, 2)}\n`);
-}
 
 beforeAll(async () => {
   const dir = mkdtempSync(path.join(tmpdir(), 'strobe-classes-'));
   const qwz = 'test/fixtures/verification/qwz-correct.json';
   const sigmaX = [[0, 1], [1, 0]];
-  write(dir, qwz, 'qwz-class-d', (d) => (d.claims = { symmetryClass: 'D', symmetries: { particleHole: { unitary: sigmaX } } }));
-  write(dir, qwz, 'qwz-class-d-undeclared', (d) => (d.claims = { symmetryClass: 'D' }));
-  write(dir, qwz, 'qwz-time-reversal', (d) => (d.claims = { symmetryClass: 'BDI', symmetries: { particleHole: { unitary: sigmaX }, timeReversal: { unitary: [[1, 0], [0, 1]] } } }));
-  write(dir, 'models/two-step-chain.json', 'chain-bdi-without-t', (d) => {
+  writeVariant(dir, qwz, 'qwz-class-d', (d) => (d.claims = { symmetryClass: 'D', symmetries: { particleHole: { unitary: sigmaX } } }));
+  writeVariant(dir, qwz, 'qwz-class-d-undeclared', (d) => (d.claims = { symmetryClass: 'D' }));
+  writeVariant(dir, qwz, 'qwz-time-reversal', (d) => (d.claims = { symmetryClass: 'BDI', symmetries: { particleHole: { unitary: sigmaX }, timeReversal: { unitary: [[1, 0], [0, 1]] } } }));
+  writeVariant(dir, 'models/two-step-chain.json', 'chain-bdi-without-t', (d) => {
     delete d.claims.symmetries.timeReversal;
     d.claims = { symmetryClass: d.claims.symmetryClass, symmetries: d.claims.symmetries };
   });
