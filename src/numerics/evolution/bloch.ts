@@ -16,6 +16,7 @@ import { zeros } from '../linalg/complex-matrix.ts';
 import type { DriveSegment, LatticeDrive, Modulation, VectorPotentialComponent } from './drive.ts';
 import { angularFrequency, segmentStartTimes } from './drive.ts';
 import { ComponentFinder } from '../linalg/connected-components.ts';
+import type { BandedMatrix } from '../linalg/banded-matrix.ts';
 
 interface CompiledTerm {
   from: number;
@@ -48,6 +49,8 @@ export interface PreparedBloch {
   isConstant(segmentIndex: number): boolean;
   /** H of segment `segmentIndex` evaluated at time t (absolute), written into `out` when given. */
   segmentAt(segmentIndex: number, t: number, out?: ComplexMatrix): ComplexMatrix;
+  /** As segmentAt, into band storage of bandwidth at least driveBandwidth(drive). */
+  segmentAtBanded(segmentIndex: number, t: number, out: BandedMatrix): BandedMatrix;
   /** Index of the segment of positive duration containing t. */
   segmentIndexAt(t: number): number;
   /**
@@ -158,20 +161,22 @@ function timeFactorTable(drive: LatticeDrive, key: string, seg: CompiledSegment,
 }
 
 /**
- * Adds one term (g·c)|to⟩⟨from| + h.c. to a Bloch matrix, g the time factor and c the
- * momentum-dressed amplitude; an onsite term adds Re(g·c) once (drive.ts conventions).
+ * Adds one term (g·c)|to⟩⟨from| + h.c. to a Bloch matrix held in (re, im), g the
+ * time factor and c the momentum-dressed amplitude; p is the position of entry
+ * (to, from) and q that of (from, to). An onsite term (p = q on the diagonal)
+ * adds Re(g·c) once (drive.ts conventions). Dense and band storage both write
+ * through here.
  */
-function addTerm(out: ComplexMatrix, n: number, term: { onsite: boolean; from: number; to: number }, gr: number, gi: number, cRe: number, cIm: number): void {
-  if (term.onsite) {
-    out.re[term.to * n + term.to] += gr * cRe;
+function addTerm(re: Float64Array, im: Float64Array, p: number, q: number, onsite: boolean, gr: number, gi: number, cRe: number, cIm: number): void {
+  if (onsite) {
+    re[p] += gr * cRe;
     return;
   }
   const hr = gr * cRe - gi * cIm, hi = gr * cIm + gi * cRe;
-  const p = term.to * n + term.from, q = term.from * n + term.to;
-  out.re[p] += hr;
-  out.im[p] += hi;
-  out.re[q] += hr;
-  out.im[q] -= hi;
+  re[p] += hr;
+  im[p] += hi;
+  re[q] += hr;
+  im[q] -= hi;
 }
 
 function fillSegment(seg: CompiledSegment, g: Float64Array, out: ComplexMatrix): ComplexMatrix {
@@ -181,10 +186,32 @@ function fillSegment(seg: CompiledSegment, g: Float64Array, out: ComplexMatrix):
   const terms = seg.terms;
   for (let j = 0; j < terms.length; j++) {
     const term = terms[j];
-    const gr = g[2 * j], gi = g[2 * j + 1];
-    addTerm(out, n, term, gr, gi, term.cRe, term.cIm);
+    addTerm(out.re, out.im, term.to * n + term.from, term.from * n + term.to, term.onsite, g[2 * j], g[2 * j + 1], term.cRe, term.cIm);
   }
   return out;
+}
+
+/** As fillSegment, into band storage (the bandwidth must hold every term, see driveBandwidth). */
+function fillSegmentBanded(seg: CompiledSegment, g: Float64Array, out: BandedMatrix): BandedMatrix {
+  out.re.fill(0);
+  out.im.fill(0);
+  const terms = seg.terms;
+  for (let j = 0; j < terms.length; j++) {
+    const term = terms[j];
+    addTerm(out.re, out.im, out.index(term.to, term.from), out.index(term.from, term.to), term.onsite, g[2 * j], g[2 * j + 1], term.cRe, term.cIm);
+  }
+  return out;
+}
+
+/**
+ * Largest |to − from| over the terms of every segment: the half-bandwidth of
+ * every H(s, t) of the drive. For a ribbon or open chain built by truncateDrive
+ * (states numbered cell by cell) it is a few cells' worth of states, whatever the width.
+ */
+export function driveBandwidth(drive: LatticeDrive): number {
+  let b = 0;
+  for (const seg of drive.segments) for (const t of seg.terms) b = Math.max(b, Math.abs(t.to - t.from));
+  return b;
 }
 
 export function prepareBloch(drive: LatticeDrive, s: ArrayLike<number>): PreparedBloch {
@@ -224,6 +251,11 @@ export function prepareBloch(drive: LatticeDrive, s: ArrayLike<number>): Prepare
     }
     return fillSegment(seg, computeTimeFactors(seg, omega, t), target);
   };
+  const segmentAtBanded = (i: number, t: number, out: BandedMatrix): BandedMatrix => {
+    checkIndex(i);
+    const seg = segments[i];
+    return fillSegmentBanded(seg, computeTimeFactors(seg, omega, seg.constant ? seg.start : t), out);
+  };
   const tableSampler = (i: number, key: string, times: ArrayLike<number>) => {
     checkIndex(i);
     const seg = segments[i];
@@ -239,6 +271,7 @@ export function prepareBloch(drive: LatticeDrive, s: ArrayLike<number>): Prepare
       return segments[i].constant;
     },
     segmentAt,
+    segmentAtBanded,
     segmentIndexAt,
   };
 }
@@ -263,8 +296,10 @@ export function kickGenerator(drive: LatticeDrive, s: ArrayLike<number>, segment
  * positive duration is constant in time (kicks are evaluated at their time), so
  * H(s) of a segment is Σ_terms amplitude·g·e^{−2πi s·n}, with the time factor g
  * fixed. `fill` writes a segment's H(s) into a caller-owned matrix without
- * allocating; `blocks` are the connected components of the segment's bond graph
- * (a structural, momentum-independent block structure for the exponential).
+ * allocating (`fillBanded` into band storage, for ribbons and open chains);
+ * `blocks` are the connected components of the segment's bond graph (a
+ * structural, momentum-independent block structure for the exponential). The
+ * momentum phases are evaluated once per distinct cell offset and call.
  * Arithmetic follows prepareBloch term by term, so both give identical matrices.
  */
 export interface ConstantDrive {
@@ -273,6 +308,7 @@ export interface ConstantDrive {
   readonly durations: readonly number[];
   readonly blocks: readonly (readonly number[][])[];
   fill(segmentIndex: number, s: ArrayLike<number>, out: ComplexMatrix): ComplexMatrix;
+  fillBanded(segmentIndex: number, s: ArrayLike<number>, out: BandedMatrix): BandedMatrix;
 }
 
 /** The drive compiled for momentum sweeps, or null when a segment of positive duration depends on time. */
@@ -285,29 +321,59 @@ export function compileConstantDrive(drive: LatticeDrive): ConstantDrive | null 
   const starts = segmentStartTimes(drive);
   const segments = drive.segments.map((seg, i) => compileSegment(drive, i, seg, starts[i], zero));
   const factors = segments.map((seg) => computeTimeFactors(seg, omega, seg.start));
-  const offsets = drive.segments.map((seg) => seg.terms.map((t) => t.offset.slice()));
   const amplitudes = drive.segments.map((seg) => seg.terms.map((t) => [t.amplitude.re, t.amplitude.im]));
   const blocks = segments.map((seg) => bondBlocks(n, seg.terms));
   const dimension = drive.dimension;
-  const fill = (i: number, s: ArrayLike<number>, out: ComplexMatrix): ComplexMatrix => {
-    const seg = segments[i], g = factors[i], offs = offsets[i], amps = amplitudes[i];
-    const terms = seg.terms;
-    out.re.fill(0);
-    out.im.fill(0);
-    for (let j = 0; j < terms.length; j++) {
-      const term = terms[j];
-      const gr = g[2 * j], gi = g[2 * j + 1];
+  // Distinct cell offsets of each segment, and the offset of every term.
+  const offsetLists = drive.segments.map((seg) => {
+    const keys = new Map<string, number>();
+    const list: number[][] = [];
+    const ofTerm = seg.terms.map((t) => {
+      const key = t.offset.join(',');
+      let k = keys.get(key);
+      if (k === undefined) {
+        k = list.length;
+        keys.set(key, k);
+        list.push(t.offset.slice());
+      }
+      return k;
+    });
+    return { list, ofTerm: Int32Array.from(ofTerm) };
+  });
+  const phases = drive.segments.map((_, i) => new Float64Array(2 * offsetLists[i].list.length));
+  const evaluatePhases = (i: number, s: ArrayLike<number>): Float64Array => {
+    const { list } = offsetLists[i], out = phases[i];
+    for (let k = 0; k < list.length; k++) {
       let arg = 0;
-      const off = offs[j];
-      for (let d = 0; d < dimension; d++) arg -= 2 * Math.PI * s[d] * off[d];
-      const cr = Math.cos(arg), ci = Math.sin(arg);
-      const ar = amps[j][0], ai = amps[j][1];
-      const cRe = ar * cr - ai * ci, cIm = ar * ci + ai * cr;
-      addTerm(out, n, term, gr, gi, cRe, cIm);
+      for (let d = 0; d < dimension; d++) arg -= 2 * Math.PI * s[d] * list[k][d];
+      out[2 * k] = Math.cos(arg);
+      out[2 * k + 1] = Math.sin(arg);
     }
     return out;
   };
-  return { size: n, dimension, durations: drive.segments.map((seg) => seg.duration), blocks, fill };
+  const write = (i: number, s: ArrayLike<number>, re: Float64Array, im: Float64Array, position: (row: number, col: number) => number) => {
+    const seg = segments[i], g = factors[i], amps = amplitudes[i], of = offsetLists[i].ofTerm;
+    const phase = evaluatePhases(i, s);
+    const terms = seg.terms;
+    re.fill(0);
+    im.fill(0);
+    for (let j = 0; j < terms.length; j++) {
+      const term = terms[j];
+      const cr = phase[2 * of[j]], ci = phase[2 * of[j] + 1];
+      const ar = amps[j][0], ai = amps[j][1];
+      const cRe = ar * cr - ai * ci, cIm = ar * ci + ai * cr;
+      addTerm(re, im, position(term.to, term.from), position(term.from, term.to), term.onsite, g[2 * j], g[2 * j + 1], cRe, cIm);
+    }
+  };
+  const fill = (i: number, s: ArrayLike<number>, out: ComplexMatrix): ComplexMatrix => {
+    write(i, s, out.re, out.im, (r, c) => r * n + c);
+    return out;
+  };
+  const fillBanded = (i: number, s: ArrayLike<number>, out: BandedMatrix): BandedMatrix => {
+    write(i, s, out.re, out.im, (r, c) => out.index(r, c));
+    return out;
+  };
+  return { size: n, dimension, durations: drive.segments.map((seg) => seg.duration), blocks, fill, fillBanded };
 }
 
 /** Connected components of the graph whose edges are the hopping terms of a segment, each sorted ascending. */

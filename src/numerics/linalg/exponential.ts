@@ -46,6 +46,16 @@ export function prepareExponential(h: ComplexMatrix): (t: number) => ComplexMatr
 
 /** Writes exp(−iHt) of the 2×2 Hermitian [[a, conj b], [b, d]] into rows/cols (i0, i1) of out. */
 export function exp2x2(a: number, d: number, bRe: number, bIm: number, t: number, out: ComplexMatrix, i0: number, i1: number): ComplexMatrix {
+  const n = out.cols;
+  exp2x2Into(a, d, bRe, bIm, t, out.re, out.im, i0 * n + i0, i0 * n + i1, i1 * n + i0, i1 * n + i1);
+  return out;
+}
+
+/**
+ * The closed form of exp2x2, written at positions p00, p01, p10, p11 of (re, im):
+ * any storage (dense or banded) that holds the four entries.
+ */
+export function exp2x2Into(a: number, d: number, bRe: number, bIm: number, t: number, re: Float64Array, im: Float64Array, p00: number, p01: number, p10: number, p11: number): void {
   const h0 = 0.5 * (a + d), hz = 0.5 * (a - d), hx = bRe, hy = bIm;
   // sqrt of the sum of squares (Math.hypot is several times slower; |h| of a physical Hamiltonian is far from overflow).
   const r = Math.sqrt(hx * hx + hy * hy + hz * hz);
@@ -54,8 +64,6 @@ export function exp2x2(a: number, d: number, bRe: number, bIm: number, t: number
   // s = sin(|h|t)/|h|, with the series near |h|t = 0.
   const s = Math.abs(phi) < 1e-4 ? t * (1 - (phi * phi) / 6) : Math.sin(phi) / r;
   const gr = Math.cos(h0 * t), gi = -Math.sin(h0 * t);
-  const n = out.cols, re = out.re, im = out.im;
-  const p00 = i0 * n + i0, p01 = i0 * n + i1, p10 = i1 * n + i0, p11 = i1 * n + i1;
   // M = e^{−ih₀t} [[c − i s hz, −s hy − i s hx], [s hy − i s hx, c + i s hz]]
   const sx = s * hx, sy = s * hy, sz = s * hz;
   re[p00] = gr * c + gi * sz;
@@ -66,7 +74,6 @@ export function exp2x2(a: number, d: number, bRe: number, bIm: number, t: number
   im[p10] = gi * sy - gr * sx;
   re[p11] = gr * c - gi * sz;
   im[p11] = gi * c + gr * sz;
-  return out;
 }
 
 /** Connected components of the graph with an edge i–j wherever H_ij ≠ 0 or H_ji ≠ 0; each sorted ascending. */

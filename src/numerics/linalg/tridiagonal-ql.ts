@@ -16,6 +16,15 @@
  */
 export const MAX_QL_ITERATIONS_PER_EIGENVALUE = 60;
 
+/**
+ * √(a² + b²) without Math.hypot (several times slower in V8) when the squares
+ * neither overflow nor underflow; Math.hypot otherwise.
+ */
+function hypot(a: number, b: number): number {
+  const s = a * a + b * b;
+  return s < 1e300 && s > 1e-300 ? Math.sqrt(s) : Math.hypot(a, b);
+}
+
 
 export function tridiagonalQl(d: Float64Array, e: Float64Array, z: Float64Array | null): void {
   const n = d.length;
@@ -40,7 +49,7 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, z: Float64Array 
         // Implicit shift from the leading 2×2 block.
         let g = d[l];
         let p = (d[l + 1] - g) / (2 * e[l]);
-        let r = Math.hypot(p, 1);
+        let r = hypot(p, 1);
         if (p < 0) r = -r;
         d[l] = e[l] / (p + r);
         d[l + 1] = e[l] * (p + r);
@@ -59,7 +68,7 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, z: Float64Array 
           s2 = s;
           g = c * e[i];
           h = c * p;
-          r = Math.hypot(p, e[i]);
+          r = hypot(p, e[i]);
           e[i + 1] = s * r;
           s = e[i] / r;
           c = p / r;

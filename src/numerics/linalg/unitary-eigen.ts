@@ -31,7 +31,7 @@ import { assertUnitary, DEFAULT_UNITARITY_TOLERANCE } from './checks.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
 import { LuDecomposition } from './lu.ts';
 import { BandedLu, bandwidth } from './banded-lu.ts';
-import { CLUSTER_SEPARATION, unitaryInverseIteration } from './unitary-inverse-iteration.ts';
+import { CLUSTER_SEPARATION, unitaryInverseIteration } from './banded-inverse-iteration.ts';
 
 export interface UnitaryEigenOptions {
   /** Accepted ‖U†U − 1‖_F / max(1, √n) (default 1e-8). */
@@ -47,16 +47,16 @@ export const CLUSTER_WIDTH = 1e-6;
  */
 const MIN_CUT_CLEARANCE = 2e-3;
 /** Per-dimension residual above which the cut is moved regardless of clearance. */
-const RESIDUAL_TARGET = 2e-14;
+export const RESIDUAL_TARGET = 2e-14;
 /** First position of the Cayley cut (the golden angle): no eigenphase commonly sits there. */
 const FIRST_CUT = Math.PI * (3 - Math.sqrt(5));
 /** Smallest n for which the banded route is tried (below it the dense route costs microseconds). */
 const BANDED_MIN_SIZE = 16;
 /** The banded route is tried when the bandwidth b satisfies b·BANDED_MAX_FRACTION ≤ n (its cost grows like n²b²). */
-const BANDED_MAX_FRACTION = 8;
+export const BANDED_MAX_FRACTION = 8;
 /**
  * Certification of the banded route: Gram entries of eigenvectors whose eigenvalues lie
- * closer than this (chained) are computed; farther pairs are bounded by (r_i + r_j)/|λ_i − λ_j|,
+ * closer than this are computed; farther pairs are bounded by (r_i + r_j)/|λ_i − λ_j|,
  * at most 40·r here, so the bound stays near the rounding level.
  */
 const GRAM_WINDOW = 0.05;
@@ -120,7 +120,7 @@ export class UnitaryEigen {
 }
 
 /** Cluster refinement, Rayleigh phases, ascending order and residual of an eigenbasis V with UV. */
-function finish(v: ComplexMatrix, uv: ComplexMatrix): { phases: Float64Array; vectors: ComplexMatrix; uv: ComplexMatrix; residual: number } {
+export function finish(v: ComplexMatrix, uv: ComplexMatrix): { phases: Float64Array; vectors: ComplexMatrix; uv: ComplexMatrix; residual: number } {
   const n = v.rows;
   refineClusters(v, uv);
   const phases = rayleighPhases(v, uv);
@@ -146,7 +146,7 @@ function finish(v: ComplexMatrix, uv: ComplexMatrix): { phases: Float64Array; ve
  * eigenphases come from the Cayley matrix as in the dense route, but its
  * inverse from a banded LU (O(n² b)) and its Hermitian eigensolve without
  * eigenvectors (no QL rotations, no back-transform); the eigenvectors come from
- * inverse iteration on U itself (unitary-inverse-iteration.ts). The result is
+ * inverse iteration on U itself (banded-inverse-iteration.ts). The result is
  * accepted only when it certifies itself: ‖UV − VΛ‖_F ≤ RESIDUAL_TARGET·n and
  * a bound on ‖V†V − 1‖_F ≤ RESIDUAL_TARGET·n, where the bound takes the Gram
  * entries explicitly inside groups of eigenvalues closer than GRAM_WINDOW and
@@ -170,7 +170,7 @@ function bandedRoute(u: ComplexMatrix, b: number): { phases: Float64Array; vecto
 }
 
 /** Size of the largest group of eigenphases chained by circular chords below `width`. */
-function largestGroup(phases: Float64Array, width: number): number {
+export function largestGroup(phases: Float64Array, width: number): number {
   const sorted = Float64Array.from(phases).sort();
   const n = sorted.length;
   if (n === 0) return 0;
@@ -187,19 +187,19 @@ function largestGroup(phases: Float64Array, width: number): number {
 
 /**
  * Upper bound on ‖V†V − 1‖_F for columns with ascending phases: explicit Gram
- * entries within groups closer than GRAM_WINDOW (chained on the circle),
- * (r_i + r_j)/|e^{iφ_i} − e^{iφ_j}| for pairs in different groups, with
+ * entries for pairs whose eigenvalues lie closer than GRAM_WINDOW (on the
+ * circle), (r_i + r_j)/|e^{iφ_i} − e^{iφ_j}| for every other pair, with
  * r_j = ‖Uv_j − e^{iφ_j}v_j‖ / ‖v_j‖ (the bound holds for normal U).
  */
-function orthogonalityBound(v: ComplexMatrix, uv: ComplexMatrix, phases: Float64Array): number {
-  const n = v.rows;
-  if (n === 0) return 0;
-  const res = new Float64Array(n), norm2 = new Float64Array(n);
-  for (let j = 0; j < n; j++) {
+export function orthogonalityBound(v: ComplexMatrix, uv: ComplexMatrix, phases: Float64Array): number {
+  const n = v.rows, m = v.cols;
+  if (m === 0) return 0;
+  const res = new Float64Array(m), norm2 = new Float64Array(m);
+  for (let j = 0; j < m; j++) {
     const cr = Math.cos(phases[j]), ci = Math.sin(phases[j]);
     let s = 0, q = 0;
     for (let r = 0; r < n; r++) {
-      const p = r * n + j;
+      const p = r * m + j;
       const xr = v.re[p], xi = v.im[p];
       const dr = uv.re[p] - (xr * cr - xi * ci), di = uv.im[p] - (xr * ci + xi * cr);
       s += dr * dr + di * di;
@@ -208,29 +208,23 @@ function orthogonalityBound(v: ComplexMatrix, uv: ComplexMatrix, phases: Float64
     norm2[j] = q;
     res[j] = Math.sqrt(s / q);
   }
-  // Group labels: a new group after every gap of at least GRAM_WINDOW; the last group joins the first across ±π.
-  const label = new Int32Array(n);
-  const chord = (a: number, c: number) => 2 * Math.abs(Math.sin(0.5 * (phases[a] - phases[c])));
-  for (let j = 1; j < n; j++) label[j] = label[j - 1] + (chord(j, j - 1) >= GRAM_WINDOW ? 1 : 0);
-  if (n > 1 && chord(0, n - 1) < GRAM_WINDOW) {
-    const last = label[n - 1];
-    for (let j = n - 1; j >= 0 && label[j] === last; j--) label[j] = 0;
-  }
   // Columns as contiguous rows for the explicit inner products.
-  const tr = new Float64Array(n * n), ti = new Float64Array(n * n);
+  const tr = new Float64Array(m * n), ti = new Float64Array(m * n);
   for (let r = 0; r < n; r++) {
-    for (let j = 0; j < n; j++) {
-      tr[j * n + r] = v.re[r * n + j];
-      ti[j * n + r] = v.im[r * n + j];
+    for (let j = 0; j < m; j++) {
+      tr[j * n + r] = v.re[r * m + j];
+      ti[j * n + r] = v.im[r * m + j];
     }
   }
+  const chord = (a: number, c: number) => 2 * Math.abs(Math.sin(0.5 * (phases[a] - phases[c])));
   let total = 0;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < m; i++) {
     total += (norm2[i] - 1) ** 2;
     const oi = i * n;
-    for (let j = i + 1; j < n; j++) {
+    for (let j = i + 1; j < m; j++) {
+      const d = chord(i, j);
       let g2: number;
-      if (label[i] === label[j]) {
+      if (d < GRAM_WINDOW) {
         let sr = 0, si = 0;
         const oj = j * n;
         for (let r = 0; r < n; r++) {
@@ -240,7 +234,7 @@ function orthogonalityBound(v: ComplexMatrix, uv: ComplexMatrix, phases: Float64
         }
         g2 = sr * sr + si * si;
       } else {
-        const bound = (res[i] + res[j]) / chord(i, j);
+        const bound = (res[i] + res[j]) / d;
         g2 = bound * bound;
       }
       total += 2 * g2;

@@ -144,15 +144,40 @@ export function countEdgeModes(
       );
     }
   }
+  return judgeEdgeCounts({ gap: c, width: ribbon.width, crossings, problems, fittedDecay: decay, bulkDecayLength, widthPerDecayLength: widthRatio });
+}
+
+/** What a count rests on, from either route (dense spectra here, shift-invert in banded-edge-counts.ts). */
+export interface EdgeCountEvidence {
+  gap: number;
+  width: number;
+  crossings: Record<'low' | 'high', EdgeCrossing[]>;
+  /** Tracking and localisation problems found while following the states. */
+  problems: string[];
+  /** Largest decay length fitted on the crossing states (cells; 0 when none crossed). */
+  fittedDecay: number;
+  bulkDecayLength: number | undefined;
+  widthPerDecayLength: number;
+}
+
+/**
+ * The counts of both edges and whether they are settled: the crossing states'
+ * decay length (or, without crossings, the bulk estimate) must fit
+ * widthPerDecayLength times into the ribbon, the two edges must cancel, and
+ * no tracking or localisation problem may have been found.
+ */
+export function judgeEdgeCounts(e: EdgeCountEvidence): [EdgeCountReport, EdgeCountReport] {
+  const { crossings, width, gap } = e;
+  const problems = [...e.problems];
   const anyCrossing = crossings.low.length + crossings.high.length > 0;
-  const decayLength = anyCrossing ? decay : (bulkDecayLength ?? NaN);
+  const decayLength = anyCrossing ? e.fittedDecay : (e.bulkDecayLength ?? NaN);
   const lowCount = crossings.low.reduce((s, x) => s + x.direction, 0);
   const highCount = crossings.high.reduce((s, x) => s + x.direction, 0);
   if (!Number.isFinite(decayLength)) {
     problems.push(anyCrossing ? 'the crossing states are not localised (no exponential decay)' : 'no state crosses the gap and no bulk estimate of the decay length was given');
-  } else if (ribbon.width < widthRatio * decayLength) {
+  } else if (width < e.widthPerDecayLength * decayLength) {
     problems.push(
-      `ribbon of ${ribbon.width} cells is narrower than ${widthRatio} decay lengths (${decayLength.toFixed(2)} cells${anyCrossing ? '' : ', bulk estimate'}); use a wider ribbon`,
+      `ribbon of ${width} cells is narrower than ${e.widthPerDecayLength} decay lengths (${decayLength.toFixed(2)} cells${anyCrossing ? '' : ', bulk estimate'}); use a wider ribbon`,
     );
   }
   if (lowCount + highCount !== 0) {
@@ -161,12 +186,12 @@ export function countEdgeModes(
   const settled = problems.length === 0;
   const report = (edge: 'low' | 'high', count: number): EdgeCountReport => {
     const r: EdgeCountReport = {
-      gap: c,
+      gap,
       edge,
       count: settled ? count : null,
       crossings: crossings[edge],
       decayLength,
-      width: ribbon.width,
+      width,
       settled,
     };
     if (!settled) r.reason = problems.slice(0, 3).join('; ') + (problems.length > 3 ? ` (and ${problems.length - 3} more)` : '');

@@ -69,7 +69,11 @@ export interface RibbonSpectrum {
 
 /** Weight of eigenvector `column` of `sample` in each cell across the ribbon. */
 export function cellWeights(sample: FloquetSample, column: number, orbitalsPerCell: number): Float64Array {
-  const v = sample.vectors;
+  return columnCellWeights(sample.vectors, column, orbitalsPerCell);
+}
+
+/** Weight of column `column` of `vectors` (states numbered cell by cell) in each cell. */
+export function columnCellWeights(v: ComplexMatrix, column: number, orbitalsPerCell: number): Float64Array {
   const cells = v.rows / orbitalsPerCell;
   const w = new Float64Array(cells);
   for (let r = 0; r < v.rows; r++) {

@@ -1,0 +1,335 @@
+/**
+ * Signed edge counts from only the ribbon states near each gap label: the
+ * route for wide ribbons, in work and memory linear in the width.
+ *
+ * At each momentum k∥ the Floquet operator is a band matrix
+ * (banded-propagator.ts). For the gap named by c, the states on the window
+ * |ε − c| < h are found by shift-and-invert around e^{−iπc}, and their number
+ * is checked against an exact inertia count (unitary-shift-invert.ts,
+ * unitary-window-count.ts); h is WINDOW_FRACTION of the distance from c to the
+ * nearer bulk band edge, so every state in the window is a boundary state or
+ * a bulk state pushed there by the finite width.
+ *
+ * Momentum grid. Every quasienergy moves at most v per unit of k∥, v the
+ * bound of velocity-bound.ts (Duhamel and the matching-distance theorem). With
+ * steps Δk ≤ h/(2v), a state that crosses c between two samples lies in the
+ * inner half of the window (|ε − c| < h/2) at both of them, and a state in the
+ * inner half at one sample is still in the window at the next: no crossing
+ * can happen unseen, and every inner state must find its partner.
+ *
+ * Following the states. Between neighbouring samples the states are matched
+ * by the largest overlap |⟨ψ(k)|ψ(k′)⟩|² (the periodic Bloch gauge makes k and
+ * k + 1 identical, which closes the loop). An interval is bisected (adaptive
+ * refinement) while an inner state has no clear partner, two states claim the
+ * same partner, a crossing is tracked with overlap below CLEAN_OVERLAP, a
+ * crossing state lies within its error bound of c, or a crossing is not yet
+ * located to CROSSING_RESOLUTION in k∥. A crossing's direction is the sign of
+ * ε(k′) − ε(k) of the matched pair, certified by the two values lying on
+ * opposite sides of c by more than their error bounds (residual of the
+ * eigenpair plus the truncation and time-integration bounds of the operator):
+ * the sign of dε/dk∥ by a certified difference.
+ *
+ * Near-degenerate states of the two edges (|Δφ| < DEGENERATE_PHASE) are
+ * returned by any eigensolver as arbitrary mixtures; inside such a group the
+ * basis is rotated to diagonalise the weight on the low edge, which separates
+ * the edges again. Decay lengths, localisation and the settled rules are those
+ * of the dense route (edge-modes.ts, judgeEdgeCounts), so both routes give the
+ * same counts on the same ribbon.
+ */
+import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
+import { zeros } from '../linalg/complex-matrix.ts';
+import { HermitianEigen } from '../linalg/hermitian-eigen.ts';
+import { eigenpairsOnArc } from '../linalg/unitary-shift-invert.ts';
+import type { BandedFloquet } from '../evolution/banded-propagator.ts';
+import type { EdgeCountReport, EdgeCrossing } from '../portrait.ts';
+import { aboveCut, circularDifference, wrapQuasienergy } from '../quasienergy-bands.ts';
+import type { EdgeCountOptions, GapArc } from './edge-modes.ts';
+import { fitDecayLength, judgeEdgeCounts } from './edge-modes.ts';
+import { columnCellWeights } from './ribbon.ts';
+
+/** Window half-width as a fraction of the distance from the label to the nearer bulk band edge. */
+export const WINDOW_FRACTION = 0.5;
+/** Largest window half-width (units π/T): the inertia count needs the arc well inside a half circle. */
+const MAX_WINDOW = 0.45;
+/** Overlap above which a crossing counts as cleanly tracked. */
+export const CLEAN_OVERLAP = 0.9;
+/** Crossings are located to this accuracy in k∥ (reduced units). */
+export const CROSSING_RESOLUTION = 1 / 4096;
+/** Eigenphases closer than this (radians) are treated as degenerate and split by edge. */
+export const DEGENERATE_PHASE = 1e-8;
+/**
+ * Where an interval is split: not its midpoint, so that refinement of the grid
+ * (j + 1/2)/n never lands on the symmetric momenta 0 and 1/2, where the two
+ * edges' states are often exactly degenerate at a label.
+ */
+const SPLIT = 0.5 - 1 / (8 * Math.PI);
+
+export interface BandedCountOptions extends EdgeCountOptions {
+  width: number;
+  edgeCells: number;
+  orbitalsPerCell: number;
+  /** Bound on |dε/dk∥| (units π/T per unit k∥), velocity-bound.ts. */
+  velocityBound: number;
+  /** Least number of momenta of the base grid (default 32). */
+  minMomenta?: number;
+  /** Most momenta on the base grid (default 8192); a coarser grid than the velocity bound asks for leaves the count unsettled. */
+  maxMomenta?: number;
+  /** Most bisection levels below a base interval (default 20). */
+  maxDepth?: number;
+  /** Largest accepted residual of the window eigenpairs (default 1e-10). */
+  residualTolerance?: number;
+}
+
+export interface BandedGap {
+  arc: GapArc;
+  /** Bulk decay-length estimate used when no state crosses (cells). */
+  bulkDecayLength?: number;
+}
+
+export interface BandedGapCounts {
+  reports: [EdgeCountReport, EdgeCountReport];
+  /** Window half-width h (units π/T). */
+  window: number;
+  /** Momenta at which the window states were computed (base grid and refinement). */
+  momenta: number;
+  /** Size of the base grid. */
+  baseMomenta: number;
+  /** Largest bound on the error of a window quasienergy (units π/T). */
+  largestError: number;
+}
+
+interface WindowStates {
+  k: number;
+  eps: Float64Array;
+  /** Bound on |ε − ε_true| per state (units π/T). */
+  error: Float64Array;
+  vectors: ComplexMatrix;
+  low: Float64Array;
+  high: Float64Array;
+}
+
+interface GapState {
+  gap: BandedGap;
+  c: number;
+  h: number;
+  first: WindowStates | null;
+  previous: WindowStates | null;
+  crossings: Record<'low' | 'high', EdgeCrossing[]>;
+  problems: Set<string>;
+  decay: number;
+  momenta: number;
+  largestError: number;
+}
+
+/** Edge counts in every gap of `gaps` on the ribbon whose banded Floquet operators `propagator` gives. */
+export function bandedEdgeCounts(propagator: BandedFloquet, gaps: BandedGap[], options: BandedCountOptions): BandedGapCounts[] {
+  const { width, edgeCells, orbitalsPerCell } = options;
+  const localisation = options.localisation ?? 0.5;
+  const trackingOverlap = options.trackingOverlap ?? 0.5;
+  const widthRatio = options.widthPerDecayLength ?? 6;
+  const maxDepth = options.maxDepth ?? 20;
+  const tolerance = options.residualTolerance ?? 1e-10;
+  const v = Math.max(options.velocityBound, 1e-12);
+  const states: GapState[] = gaps.map((gap) => {
+    const c = gap.arc.label;
+    const h = Math.min(MAX_WINDOW, WINDOW_FRACTION * Math.min(aboveCut(c, gap.arc.lower), aboveCut(gap.arc.upper, c)));
+    return { gap, c, h, first: null, previous: null, crossings: { low: [], high: [] }, problems: new Set(), decay: 0, momenta: 0, largestError: 0 };
+  });
+  // An even number of points: (j + 1/2)/n then never equals 1/2.
+  const even = (x: number) => 2 * Math.ceil(x / 2);
+  const wanted = even(Math.max(options.minMomenta ?? 32, ...states.map((g) => Math.ceil((2 * v) / g.h))));
+  const base = Math.min(wanted, even(options.maxMomenta ?? 8192));
+  for (const g of states) {
+    if (base < Math.ceil((2 * v) / g.h)) {
+      g.problems.add(`the momentum grid (${base} points) is coarser than the velocity bound asks for (${Math.ceil((2 * v) / g.h)} points for a window of ${g.h.toExponential(2)} π/T): a crossing could pass unseen`);
+    }
+  }
+  const cells = width;
+  const edgeWeights = (vectors: ComplexMatrix, column: number): [number, number] => {
+    const w = columnCellWeights(vectors, column, orbitalsPerCell);
+    let lo = 0, hi = 0;
+    for (let e = 0; e < edgeCells; e++) {
+      lo += w[e];
+      hi += w[cells - 1 - e];
+    }
+    return [lo, hi];
+  };
+
+  const windowAt = (g: GapState, k: number, u: ReturnType<BandedFloquet['at']>, start?: ComplexMatrix): WindowStates => {
+    g.momenta++;
+    const arc = eigenpairsOnArc(u.operator, -Math.PI * g.c, Math.PI * g.h, { tolerance, ...(start && start.cols > 0 ? { start } : {}) });
+    if (!arc.converged) g.problems.add(`at k∥ = ${k.toFixed(5)}: ${arc.caveat ?? 'the states near the label were not all found'}`);
+    const m = arc.phases.length;
+    splitDegenerate(arc.phases, arc.vectors, edgeCells, orbitalsPerCell);
+    const eps = Float64Array.from(arc.phases, (p) => wrapQuasienergy(-p / Math.PI));
+    const error = Float64Array.from(arc.residuals, (r) => (r + u.truncation + u.accuracy) / Math.PI);
+    for (const e of error) g.largestError = Math.max(g.largestError, e);
+    const low = new Float64Array(m), high = new Float64Array(m);
+    for (let j = 0; j < m; j++) [low[j], high[j]] = edgeWeights(arc.vectors, j);
+    return { k, eps, error, vectors: arc.vectors, low, high };
+  };
+
+  const track = (g: GapState, a: WindowStates, b: WindowStates, depth: number): void => {
+    const ma = a.eps.length, mb = b.eps.length;
+    if (ma === 0 && mb === 0) return;
+    const overlap = overlaps(a.vectors, b.vectors);
+    const inner = 0.5 * g.h;
+    const side = (x: number) => circularDifference(x, g.c) > 0;
+    const bestOf = (i: number): [number, number] => {
+      let best = -1, value = -1;
+      for (let j = 0; j < mb; j++) if (overlap[i * mb + j] > value) { value = overlap[i * mb + j]; best = j; }
+      return [best, value];
+    };
+    let refine = false;
+    const matches: [number, number, number][] = [];
+    const claimed = new Map<number, number>();
+    for (let i = 0; i < ma; i++) {
+      const [j, o] = bestOf(i);
+      const isInner = Math.abs(circularDifference(a.eps[i], g.c)) < inner;
+      if (j < 0 || o < trackingOverlap) {
+        if (isInner) refine = true;
+        continue;
+      }
+      if (claimed.has(j)) refine = true;
+      claimed.set(j, i);
+      matches.push([i, j, o]);
+    }
+    for (let j = 0; j < mb; j++) {
+      if (!claimed.has(j) && Math.abs(circularDifference(b.eps[j], g.c)) < inner) refine = true;
+    }
+    const found: { i: number; j: number; o: number }[] = [];
+    for (const [i, j, o] of matches) {
+      if (side(a.eps[i]) === side(b.eps[j])) continue;
+      found.push({ i, j, o });
+      const certain = Math.abs(circularDifference(a.eps[i], g.c)) > a.error[i] && Math.abs(circularDifference(b.eps[j], g.c)) > b.error[j];
+      if (o < CLEAN_OVERLAP || !certain || b.k - a.k > CROSSING_RESOLUTION) refine = true;
+    }
+    if (refine) {
+      if (depth < maxDepth) {
+        const km = a.k + SPLIT * (b.k - a.k);
+        const mid = windowAt(g, km, propagator.at([km - Math.floor(km)]), a.vectors);
+        track(g, a, mid, depth + 1);
+        track(g, mid, b, depth + 1);
+        return;
+      }
+      g.problems.add(`near k∥ = ${(a.k - Math.floor(a.k)).toFixed(5)} the states near ${g.c.toFixed(4)} could not be followed down to Δk∥ = ${(b.k - a.k).toExponential(1)}`);
+    }
+    for (const { i, j } of found) {
+      const step = circularDifference(b.eps[j], a.eps[i]);
+      const low = 0.5 * (a.low[i] + b.low[j]), high = 0.5 * (a.high[i] + b.high[j]);
+      const edge = low >= high ? 'low' : 'high';
+      const weight = Math.max(low, high);
+      // Linear interpolation of the crossing momentum inside the interval.
+      const da = circularDifference(g.c, a.eps[i]);
+      const fraction = step !== 0 ? Math.min(1, Math.max(0, da / step)) : 0.5;
+      const momentum = a.k + fraction * (b.k - a.k);
+      if (weight < localisation) {
+        g.problems.add(
+          `a state crossing ${g.c.toFixed(4)} near k∥ = ${(momentum - Math.floor(momentum)).toFixed(4)} is not localised on either edge (weights ${low.toFixed(2)} low, ${high.toFixed(2)} high in ${edgeCells} cells)`,
+        );
+      }
+      g.crossings[edge].push({ momentum: momentum - Math.floor(momentum), direction: step > 0 ? 1 : -1, weight });
+      g.decay = Math.max(
+        g.decay,
+        fitDecayLength(columnCellWeights(a.vectors, i, orbitalsPerCell), edge),
+        fitDecayLength(columnCellWeights(b.vectors, j, orbitalsPerCell), edge),
+      );
+    }
+  };
+
+  for (let step = 0; step <= base; step++) {
+    const k = (step + 0.5) / base;
+    // The last step returns to the first momentum, one period later (k and k + 1 are the same operator).
+    const u = step < base ? propagator.at([k]) : null;
+    for (const g of states) {
+      const here = step < base ? windowAt(g, k, u!, g.previous?.vectors) : { ...g.first!, k };
+      if (g.previous !== null) track(g, g.previous, here, 0);
+      if (step === 0) g.first = here;
+      g.previous = here;
+    }
+  }
+
+  return states.map((g) => {
+    g.crossings.low.sort((x, y) => x.momentum - y.momentum);
+    g.crossings.high.sort((x, y) => x.momentum - y.momentum);
+    const reports = judgeEdgeCounts({
+      gap: g.c,
+      width,
+      crossings: g.crossings,
+      problems: [...g.problems],
+      fittedDecay: g.decay,
+      bulkDecayLength: g.gap.bulkDecayLength,
+      widthPerDecayLength: widthRatio,
+    });
+    return { reports, window: g.h, momenta: g.momenta, baseMomenta: base, largestError: g.largestError };
+  });
+}
+
+/** |⟨a_i|b_j⟩|², row-major (columns of a × columns of b). */
+function overlaps(a: ComplexMatrix, b: ComplexMatrix): Float64Array {
+  const n = a.rows, ma = a.cols, mb = b.cols;
+  const out = new Float64Array(ma * mb);
+  for (let i = 0; i < ma; i++) {
+    for (let j = 0; j < mb; j++) {
+      let re = 0, im = 0;
+      for (let r = 0; r < n; r++) {
+        const p = r * ma + i, q = r * mb + j;
+        re += a.re[p] * b.re[q] + a.im[p] * b.im[q];
+        im += a.re[p] * b.im[q] - a.im[p] * b.re[q];
+      }
+      out[i * mb + j] = re * re + im * im;
+    }
+  }
+  return out;
+}
+
+/**
+ * Inside every group of eigenphases closer than DEGENERATE_PHASE, rotates the
+ * columns to diagonalise the weight in the first `edgeCells` cells: degenerate
+ * states of the two edges come out separated, one per edge.
+ */
+function splitDegenerate(phases: Float64Array, v: ComplexMatrix, edgeCells: number, orbitalsPerCell: number): void {
+  const m = phases.length;
+  let start = 0;
+  for (let j = 1; j <= m; j++) {
+    if (j < m && Math.abs(circularDifference(phases[j] / Math.PI, phases[j - 1] / Math.PI)) * Math.PI < DEGENERATE_PHASE) continue;
+    if (j - start > 1) rotateByLowWeight(v, Array.from({ length: j - start }, (_, t) => start + t), edgeCells * orbitalsPerCell);
+    start = j;
+  }
+}
+
+function rotateByLowWeight(v: ComplexMatrix, cols: number[], rows: number): void {
+  const k = cols.length, m = v.cols, n = v.rows;
+  const p = zeros(k, k);
+  for (let a = 0; a < k; a++) {
+    for (let b = 0; b < k; b++) {
+      let re = 0, im = 0;
+      for (let r = 0; r < rows; r++) {
+        const x = r * m + cols[a], y = r * m + cols[b];
+        re += v.re[x] * v.re[y] + v.im[x] * v.im[y];
+        im += v.re[x] * v.im[y] - v.im[x] * v.re[y];
+      }
+      p.re[a * k + b] = re;
+      p.im[a * k + b] = im;
+    }
+  }
+  const z = new HermitianEigen(p, { hermiticityTolerance: Infinity }).vectors;
+  const rowRe = new Float64Array(k), rowIm = new Float64Array(k);
+  for (let r = 0; r < n; r++) {
+    for (let a = 0; a < k; a++) {
+      let sr = 0, si = 0;
+      for (let b = 0; b < k; b++) {
+        const xr = v.re[r * m + cols[b]], xi = v.im[r * m + cols[b]];
+        const yr = z.re[b * k + a], yi = z.im[b * k + a];
+        sr += xr * yr - xi * yi;
+        si += xr * yi + xi * yr;
+      }
+      rowRe[a] = sr;
+      rowIm[a] = si;
+    }
+    for (let a = 0; a < k; a++) {
+      v.re[r * m + cols[a]] = rowRe[a];
+      v.im[r * m + cols[a]] = rowIm[a];
+    }
+  }
+}
