@@ -495,9 +495,13 @@ export interface NumericsHints {
    */
   gapEvaluations?: number;
   /**
-   * Cells in the open chain used for end modes (1D). Default: 10 bulk decay lengths, at most 160.
+   * Cells in the open chain used for end modes (1D). Default: 10 bulk decay lengths, at most maxChainLength.
    */
   chainLength?: number;
+  /**
+   * Length budget of the open chain (cells) when the engine chooses the length. Default 40000 states' worth (20000 cells of a two-orbital model).
+   */
+  maxChainLength?: number;
   tolerances?: Tolerances;
 }
 /**
@@ -505,9 +509,13 @@ export interface NumericsHints {
  */
 export interface RibbonHints {
   /**
-   * Number of cells across the ribbon. Default 24.
+   * Starting number of cells across the ribbon. Default 24; the engine widens the ribbon to 6 decay lengths of the edge states on its own, up to maxWidth.
    */
   width?: number;
+  /**
+   * Width budget: the widest ribbon (cells) the engine may widen to. Default 16000 states' worth (8000 cells of a two-orbital model).
+   */
+  maxWidth?: number;
   /**
    * Index of the lattice vector along which the ribbon is finite. Default 1 (edges along a1).
    */

@@ -234,6 +234,11 @@ export function checkSemantics(doc: ModelDocument, values: ReadonlyMap<string, n
   if (doc.numerics?.kGrid) countOf(doc.numerics.kGrid, '/numerics/kGrid', 'kGrid');
   if (doc.numerics?.ribbon && dim !== 2) issues.push({ pointer: '/numerics/ribbon', target: 'key', message: 'ribbon hints apply to 2D sheets only' });
   if (doc.numerics?.chainLength !== undefined && dim !== 1) issues.push({ pointer: '/numerics/chainLength', target: 'key', message: 'chainLength applies to 1D chains only' });
+  if (doc.numerics?.maxChainLength !== undefined && dim !== 1) issues.push({ pointer: '/numerics/maxChainLength', target: 'key', message: 'maxChainLength applies to 1D chains only' });
+  const ribbon = doc.numerics?.ribbon;
+  if (ribbon?.width !== undefined && ribbon.maxWidth !== undefined && ribbon.width > ribbon.maxWidth) {
+    issues.push({ pointer: '/numerics/ribbon/width', message: `the starting width ${ribbon.width} exceeds the width budget maxWidth ${ribbon.maxWidth}`, hint: 'raise maxWidth or lower width' });
+  }
 
   // Sweeps.
   const sweepNames = new Set<string>();

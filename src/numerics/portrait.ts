@@ -128,21 +128,49 @@ export interface EdgeCountReport {
   width: number;
   settled: boolean;
   reason?: string;
+  /** Banded route: momenta at which the states near the label were computed (base grid and refinement). */
+  momentaEvaluated?: number;
+  /** Banded route: half-width of the window around the label (units π/T). */
+  window?: number;
+  /** Banded route: largest bound on the error of a window quasienergy (units π/T: eigenpair residual, truncation, time integration). */
+  errorBound?: number;
 }
 
-export interface RibbonReport {
-  /** Index (0 or 1) of the lattice vector along which the ribbon is finite; k∥ is the reduced momentum of the other. */
-  finiteDirection: number;
-  /** Ribbon width in cells, and the number of cells on each side counted as edge region. */
+/** A ribbon spectrum for plots: every state at every momentum, with edge weights and the localisation measure. */
+export interface RibbonSpectrumReport {
+  /** Width of the plotted ribbon (cells; at most the width of the counts, which may be much wider). */
   width: number;
   edgeCells: number;
   /** Momenta along the edge (reduced) and quasienergies per momentum (units π/T). */
   momenta: number[];
   quasienergies: number[][];
-  /** Weight of each state on the low and high edge regions, per momentum. */
+  /** Weight of each state on the low and high edge regions (edgeCells each), per momentum. */
   lowEdgeWeight: number[][];
   highEdgeWeight: number[][];
+  /** Edge-localisation measure (src/numerics/edge-localisation.ts): region size, the weight of an even spread there, per-state measures. */
+  localisationCells: number;
+  uniformWeight: number;
+  lowLocalisation: number[][];
+  highLocalisation: number[][];
+}
+
+export interface RibbonReport {
+  /** Index (0 or 1) of the lattice vector along which the ribbon is finite; k∥ is the reduced momentum of the other. */
+  finiteDirection: number;
+  /** Width in cells the counts were taken on; the widths tried on the way (the engine widens to 6 decay lengths) and the largest it may use. */
+  width: number;
+  widths: number[];
+  widthBudget: number;
+  /** Cells on each side counted as edge region. */
+  edgeCells: number;
+  /** 'dense': every state at every momentum; 'banded': only the states near each gap label (shift-invert on band matrices). */
+  route: 'dense' | 'banded';
+  /** Momenta of the counts: the uniform grid (dense route) or the base grid before refinement (banded route). */
+  momenta: number;
+  /** Largest bound on ‖U_band − U‖₂ over the momenta (radians; 0 for exact step factors). */
+  truncation: number;
   counts: EdgeCountReport[];
+  spectrum: RibbonSpectrumReport;
 }
 
 /** A relation between computed invariants that must hold; failures are reported, never smoothed over. */
@@ -307,18 +335,28 @@ export interface ChainEndModes {
 }
 
 export interface ChainOpenReport {
-  /** Chain length (cells), end-region size (cells), and whether the default length reached 10 decay lengths. */
+  /** Chain length (cells), end-region size (cells), and whether the default length reached 10 decay lengths within the budget (cells). */
   cells: number;
   edgeCells: number;
   lengthSufficient: boolean;
+  lengthBudget: number;
+  /** 'all': every state of the open chain below; 'near-gap-labels': only those within half the bulk clearance of 0 and π/T (long chains, shift-invert). */
+  coverage: 'all' | 'near-gap-labels';
   modes: ChainEndModes[];
-  /** ‖UV − VΛ‖_F of the open-chain eigen-decomposition. */
+  /** ‖UV − VΛ‖_F of the open-chain eigen-decomposition (states computed). */
   eigenResidual: number;
-  /** Every quasienergy of the open chain (units π/T), ascending. */
+  /** Bound on ‖U_band − U‖₂ of the band operator (radians; 0 for exact step factors). */
+  truncation: number;
+  /** Quasienergies of the open chain (units π/T), ascending. */
   quasienergies: number[];
   /** Weight of each state (order of `quasienergies`) in the first and the last `edgeCells` cells. */
   lowEdgeWeight: number[];
   highEdgeWeight: number[];
+  /** Edge-localisation measure (src/numerics/edge-localisation.ts): region size, weight of an even spread there, per-state measures. */
+  localisationCells: number;
+  uniformWeight: number;
+  lowLocalisation: number[];
+  highLocalisation: number[];
 }
 
 export interface ChainPortrait {

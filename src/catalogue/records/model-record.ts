@@ -58,7 +58,10 @@ export interface SpectrumRecord {
   /** What the spectrum is: a ribbon finite along a₁/a₂, or an open chain. */
   kind: 'ribbon' | 'open-chain';
   finiteDirection: number | null;
+  /** Cells across the plotted ribbon or along the chain. */
   width: number;
+  /** 'all': every state; 'near-gap-labels': only the states near 0 and π/T (long open chains, computed by shift-invert). */
+  coverage: 'all' | 'near-gap-labels';
   /** Momenta along the edge (reduced), decimated for plotting; empty for an open chain. */
   momenta: number[];
   /** Quasienergies (units π/T) per momentum (one row for an open chain), rounded for plotting. */
@@ -66,8 +69,24 @@ export interface SpectrumRecord {
   /** Edge weight of each state: low edge, high edge (rounded to 3 decimals). */
   lowEdgeWeight: number[][];
   highEdgeWeight: number[][];
+  /** The edge-localisation measure of every state (docs/conventions.md, "Edge localisation"). */
+  localisation: LocalisationRecord;
   /** Every how many momenta of the computed spectrum were kept. */
   stride: number;
+}
+
+/**
+ * Per state, m = max(0, (p − u)/(1 − u)) with p its weight in the outer `cells`
+ * cells of one edge and u = cells/width (an even spread): a state with m ≥
+ * `threshold` on an edge belongs to it; extended states stay below 1/7 on each
+ * edge. Same shape as quasienergies (rounded to 3 decimals).
+ */
+export interface LocalisationRecord {
+  cells: number;
+  uniformWeight: number;
+  threshold: number;
+  low: number[][];
+  high: number[][];
 }
 
 export interface AnalysisRecord {

@@ -12,6 +12,7 @@ import { ANOMALOUS_DEFINITION } from '../verify/anomalous.ts';
 import { gapEvidence } from '../verify/sheet-verdicts.ts';
 import type { ChainView } from '../verify/chain-view.ts';
 import type { VerdictPolicy } from '../verify/policy.ts';
+import { LOCALISATION_THRESHOLD } from '../../numerics/edge-localisation.ts';
 
 export interface EngineIdentity {
   version: string;
@@ -86,15 +87,24 @@ export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisR
     const order = chain.quasienergies.map((e, i) => [e, i] as const).sort((a, b) => a[0] - b[0]).map(([, i]) => i);
     const stride = Math.max(1, Math.ceil(order.length / 400));
     // States mostly in the end regions are kept whatever the stride: they are what the plot is for.
-    const kept = order.filter((i, position) => position % stride === 0 || chain.lowEdgeWeight[i] + chain.highEdgeWeight[i] >= 0.5);
+    const loc = chain.localisation;
+    const kept = order.filter((i, position) => position % stride === 0 || loc.low[i] + loc.high[i] >= LOCALISATION_THRESHOLD);
     spectra.push({
       kind: 'open-chain',
       finiteDirection: null,
       width: chain.length,
+      coverage: chain.coverage,
       momenta: [],
       quasienergies: [kept.map((i) => roundTo(chain.quasienergies[i], 1e-5))],
       lowEdgeWeight: [kept.map((i) => roundTo(chain.lowEdgeWeight[i], 1e-3))],
       highEdgeWeight: [kept.map((i) => roundTo(chain.highEdgeWeight[i], 1e-3))],
+      localisation: {
+        cells: loc.cells,
+        uniformWeight: roundTo(loc.uniformWeight, 1e-6),
+        threshold: LOCALISATION_THRESHOLD,
+        low: [kept.map((i) => roundTo(loc.low[i], 1e-3))],
+        high: [kept.map((i) => roundTo(loc.high[i], 1e-3))],
+      },
       stride,
     });
   }
@@ -118,15 +128,24 @@ export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisR
 
 export function sheetAnalysis(p: SheetPortrait, policy: VerdictPolicy): AnalysisRecord {
   const spectra: SpectrumRecord[] = p.ribbons.map((r) => {
-    const stride = strideFor(r.momenta.length);
+    const plot = r.spectrum;
+    const stride = strideFor(plot.momenta.length);
     return {
       kind: 'ribbon',
       finiteDirection: r.finiteDirection,
-      width: r.width,
-      momenta: decimateRows(r.momenta, stride).map((k) => roundTo(k, 1e-6)),
-      quasienergies: roundRows(decimateRows(r.quasienergies, stride), 1e-5),
-      lowEdgeWeight: roundRows(decimateRows(r.lowEdgeWeight, stride), 1e-3),
-      highEdgeWeight: roundRows(decimateRows(r.highEdgeWeight, stride), 1e-3),
+      width: plot.width,
+      coverage: 'all',
+      momenta: decimateRows(plot.momenta, stride).map((k) => roundTo(k, 1e-6)),
+      quasienergies: roundRows(decimateRows(plot.quasienergies, stride), 1e-5),
+      lowEdgeWeight: roundRows(decimateRows(plot.lowEdgeWeight, stride), 1e-3),
+      highEdgeWeight: roundRows(decimateRows(plot.highEdgeWeight, stride), 1e-3),
+      localisation: {
+        cells: plot.localisationCells,
+        uniformWeight: roundTo(plot.uniformWeight, 1e-6),
+        threshold: LOCALISATION_THRESHOLD,
+        low: roundRows(decimateRows(plot.lowLocalisation, stride), 1e-3),
+        high: roundRows(decimateRows(plot.highLocalisation, stride), 1e-3),
+      },
       stride,
     };
   });

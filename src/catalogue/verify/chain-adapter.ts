@@ -36,6 +36,7 @@ export function chainOptions(request: AnalysisRequest): ChainAnalysisOptions {
   const hints = request.hints;
   const options: ChainAnalysisOptions = {};
   if (hints?.chainLength !== undefined) options.cells = hints.chainLength;
+  if (hints?.maxChainLength !== undefined) options.maxCells = hints.maxChainLength;
   // Sweeps map bulk quantities only: no open chain, so no end modes and no bulk–end relations there.
   if (request.skip.has('edges')) options.run = { openChain: false };
   if (hints?.kGrid?.[0] !== undefined) options.gapGrid = hints.kGrid[0];
@@ -147,7 +148,7 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     }
     if (settled && !chain!.lengthSufficient) {
       settled = false;
-      reason = `the open chain (${chain!.cells} cells) is shorter than 10 decay lengths (≈ ${decay.toPrecision(3)} cells)`;
+      reason = `the open chain (${chain!.cells} cells, the length budget) is shorter than 10 decay lengths (≈ ${decay.toPrecision(3)} cells); raise numerics.maxChainLength`;
     }
     return { gap: m.label, count: settled ? m.low : null, settled, ...(reason !== undefined ? { reason } : {}), chainLength: chain!.cells, decayLength: decay };
   });
@@ -162,7 +163,16 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     frames,
     frameNotes: p.chiral?.frameNotes ?? [],
     endModes,
-    openChain: chain ? { length: chain.cells, quasienergies: chain.quasienergies, lowEdgeWeight: chain.lowEdgeWeight, highEdgeWeight: chain.highEdgeWeight } : null,
+    openChain: chain
+      ? {
+          length: chain.cells,
+          coverage: chain.coverage,
+          quasienergies: chain.quasienergies,
+          lowEdgeWeight: chain.lowEdgeWeight,
+          highEdgeWeight: chain.highEdgeWeight,
+          localisation: { cells: chain.localisationCells, uniformWeight: chain.uniformWeight, low: chain.lowLocalisation, high: chain.highLocalisation },
+        }
+      : null,
     symmetry: residualEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']),
     symmetryClass: p.symmetryClass,
     consistency: p.consistency,

@@ -57,7 +57,14 @@ export interface ChainView {
    * them at 1.5× the length): a count is settled only when both lengths agree.
    */
   checkEndModes?: EndModeCount[];
-  openChain: { length: number; quasienergies: number[]; lowEdgeWeight: number[]; highEdgeWeight: number[] } | null;
+  openChain: {
+    length: number;
+    coverage: 'all' | 'near-gap-labels';
+    quasienergies: number[];
+    lowEdgeWeight: number[];
+    highEdgeWeight: number[];
+    localisation: { cells: number; uniformWeight: number; low: number[]; high: number[] };
+  } | null;
   /**
    * Residuals of the declared symmetries with their tolerance, two per symmetry:
    * the Hamiltonian relation and the Floquet-operator relation. Each name starts

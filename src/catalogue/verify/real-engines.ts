@@ -20,6 +20,7 @@ export function sheetOptions(request: AnalysisRequest): SheetOptions {
     ribbon: {
       directions: request.ribbonDirections.length > 0 ? request.ribbonDirections : [hints?.ribbon?.finiteAlong ?? DEFAULT_FINITE_ALONG],
       ...(hints?.ribbon?.width !== undefined ? { width: hints.ribbon.width } : {}),
+      ...(hints?.ribbon?.maxWidth !== undefined ? { maxWidth: hints.ribbon.maxWidth } : {}),
       ...(hints?.ribbon?.momenta !== undefined ? { momenta: hints.ribbon.momenta } : {}),
     },
   };

@@ -181,12 +181,23 @@ function edgeObservation(ribbons: RibbonReport[], gap: GapReport, finiteAlong: n
   const count = ribbon.counts.find((c) => sameLabel(c.gap, gap.label) && c.edge === end);
   if (!count) return `the ribbon spectrum (width ${ribbon.width}) has no count for this gap on the ${end} edge`;
   return {
-    grid: [ribbon.width, ribbon.momenta.length],
+    grid: [ribbon.width, ribbon.momenta],
     count: count.count,
     settled: count.settled,
     ...(count.reason !== undefined ? { reason: count.reason } : {}),
-    note: `decay length ≈ ${count.decayLength.toPrecision(3)} cells, ribbon width ${count.width} cells, ${count.crossings.length} edge crossing(s)`,
+    note: `decay length ≈ ${count.decayLength.toPrecision(3)} cells, ribbon width ${count.width} cells, ${count.crossings.length} edge crossing(s); ${ribbonRoute(ribbon, count)}`,
   };
+}
+
+/** How a ribbon count was taken, for the certificate: widths tried, route, grid and error bounds. */
+function ribbonRoute(r: RibbonReport, c: RibbonReport['counts'][number]): string {
+  const widths = r.widths.length > 1 ? `widths tried ${r.widths.join(', ')} cells (budget ${r.widthBudget})` : `width budget ${r.widthBudget} cells`;
+  const route =
+    r.route === 'dense'
+      ? `every state at ${r.momenta} momenta`
+      : `states within ${(c.window ?? 0).toPrecision(3)} π/T of the label by shift-invert at ${c.momentaEvaluated ?? r.momenta} momenta (base grid ${r.momenta}), quasienergy error ≤ ${(c.errorBound ?? 0).toExponential(1)} π/T`;
+  const truncation = r.truncation > 0 ? `, band truncation ≤ ${r.truncation.toExponential(1)}` : '';
+  return `${widths}; ${route}${truncation}`;
 }
 
 /** Signed edge count, settled only when a ribbon 1.5× as wide (checkRibbons) gives the same count. */

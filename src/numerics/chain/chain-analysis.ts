@@ -18,7 +18,7 @@ import { bulkGaps, FloquetCache } from './bulk-gaps.ts';
 import { chiralInvariants } from './chiral-winding.ts';
 import { majoranaInvariants } from './majorana-z2.ts';
 import { phaseWinding } from './phase-winding.ts';
-import { defaultChainLength, openChainSpectrum } from './open-chain.ts';
+import { DEFAULT_CHAIN_STATES, defaultChainLength, openChainSpectrum } from './open-chain.ts';
 import { chiralFromTimeReversalAndParticleHole } from '../symmetry/symmetry-residuals.ts';
 import { declaredSymmetryReports } from '../symmetry/declared-symmetries.ts';
 import { declaredSymmetryClass } from '../symmetry/altland-zirnbauer.ts';
@@ -35,7 +35,7 @@ export interface ChainSymmetries {
 export interface ChainAnalysisOptions {
   /** Open chain length in cells (default from the bulk decay length, see open-chain.ts). */
   cells?: number;
-  /** Cap on the default length (default 160). */
+  /** Budget of the default length in cells (default DEFAULT_CHAIN_STATES / orbitals per cell). */
   maxCells?: number;
   /** Symmetry residual tolerance (default 1e-10). */
   symmetryTolerance?: number;
@@ -77,7 +77,7 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   // Winding of det U(k, T) (quasienergy-winding.ts), on the operators the gap scan already computed.
   const det = timed('determinant-winding', () => phaseWinding((s) => new LuDecomposition(cache.operator(s).operator).determinant));
 
-  const length = defaultChainLength(bulk, 10, options.maxCells ?? 160);
+  const length = defaultChainLength(bulk, 10, options.maxCells ?? Math.floor(DEFAULT_CHAIN_STATES / drive.states.length));
   const cells = options.cells ?? length.cells;
   const open = options.run?.openChain === false ? undefined : timed('open-chain', () => openChainSpectrum(drive, cells, { bulk, propagator }));
   const modes: ChainEndModes[] = (open?.modes ?? []).map((m) => ({
@@ -150,11 +150,18 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
             cells,
             edgeCells: open.edgeCells,
             lengthSufficient: options.cells !== undefined || length.sufficient,
+            lengthBudget: options.maxCells ?? Math.floor(DEFAULT_CHAIN_STATES / drive.states.length),
+            coverage: open.coverage,
             modes,
             eigenResidual: open.eigenResidual,
+            truncation: open.truncation,
             quasienergies: open.quasienergies,
             lowEdgeWeight: open.lowEdgeWeight,
             highEdgeWeight: open.highEdgeWeight,
+            localisationCells: open.localisationCells,
+            uniformWeight: open.uniformWeight,
+            lowLocalisation: open.lowLocalisation,
+            highLocalisation: open.highLocalisation,
           },
         }
       : {}),

@@ -30,6 +30,7 @@ import { CF4_NODES, CF4_WEIGHTS } from './magnus.ts';
 import { BandedMatrix, compactBandwidth, multiplyBanded } from '../linalg/banded-matrix.ts';
 import { bandedExpMinusIHt, DEFAULT_EXPONENTIAL_TOLERANCE } from '../linalg/banded-exponential.ts';
 import { ComponentFinder } from '../linalg/connected-components.ts';
+import { truncateDrive } from '../supercell.ts';
 
 export interface BandedPropagatorOptions {
   propagator?: PropagatorOptions;
@@ -136,4 +137,23 @@ export function prepareBandedFloquet(drive: LatticeDrive, options: BandedPropaga
     return { operator: u, truncation, accuracy: sliceAccuracy, route: expanded ? 'expanded' : 'exact' };
   };
   return { size: n, hamiltonianBandwidth: b, slices, at };
+}
+
+/** Width of the narrow copy of an open geometry on which Magnus slice counts are settled. */
+export const NARROW_PLAN_CELLS = 8;
+
+/**
+ * The banded Floquet operators of `drive` cut open to `cells` cells along
+ * lattice vector `finiteDirection` (a ribbon from a sheet, an open chain from
+ * a chain). Time-dependent segments take the slice counts settled on a copy
+ * NARROW_PLAN_CELLS cells wide: the CF4 error is measured with local norms
+ * (row sums), which the width does not change.
+ */
+export function openBandedFloquet(drive: LatticeDrive, finiteDirection: number, cells: number, propagator?: PropagatorOptions): BandedFloquet {
+  const open = truncateDrive(drive, finiteDirection, cells);
+  const probe = prepareBloch(open, new Array<number>(open.dimension).fill(0));
+  const timeDependent = open.segments.some((seg, i) => seg.duration > 0 && !probe.isConstant(i));
+  if (!timeDependent || cells <= NARROW_PLAN_CELLS) return prepareBandedFloquet(open, { propagator });
+  const plan = magnusSlicePlan(truncateDrive(drive, finiteDirection, NARROW_PLAN_CELLS), propagator);
+  return prepareBandedFloquet(open, { propagator, slices: plan.slices, sliceAccuracy: plan.accuracy });
 }

@@ -31,6 +31,7 @@ import { BandedMatrix } from './banded-matrix.ts';
 import { bandHermitianEigenvalues } from './band-tridiagonal.ts';
 import { bandedInverseIteration, CLUSTER_SEPARATION } from './banded-inverse-iteration.ts';
 import { BANDED_MAX_FRACTION, finish, foldPhase, orthogonalityBound, RESIDUAL_TARGET, UnitaryEigen } from './unitary-eigen.ts';
+import { HermitianEigen } from './hermitian-eigen.ts';
 
 /** The golden angle: no eigenphase commonly sits there. */
 const DEFAULT_ROTATION = Math.PI * (3 - Math.sqrt(5));
@@ -159,8 +160,11 @@ export function bandedUnitaryEigen(u: BandedMatrix, rotation: number = DEFAULT_R
   return { phases: done.phases, vectors: done.vectors, residual: done.residual, route: 'band' };
 }
 
-/** Replaces the columns `cols` of V (and of UV) by eigenvectors of U inside their span (V_g†UV_g diagonalised). */
-export function rediagonaliseGroup(v: ComplexMatrix, uv: ComplexMatrix, cols: number[]): void {
+/**
+ * Replaces the columns `cols` of V (and of AV) by eigenvectors of A inside their
+ * span (V_g†AV_g diagonalised), A unitary or, with `hermitian`, Hermitian.
+ */
+export function rediagonaliseGroup(v: ComplexMatrix, uv: ComplexMatrix, cols: number[], hermitian = false): void {
   const n = v.rows, m = v.cols, k = cols.length;
   const c = zeros(k, k);
   for (let a = 0; a < k; a++) {
@@ -175,7 +179,7 @@ export function rediagonaliseGroup(v: ComplexMatrix, uv: ComplexMatrix, cols: nu
       c.im[a * k + b] = si;
     }
   }
-  const z = new UnitaryEigen(c).vectors;
+  const z = hermitian ? new HermitianEigen(c, { hermiticityTolerance: Infinity }).vectors : new UnitaryEigen(c).vectors;
   const rowRe = new Float64Array(k), rowIm = new Float64Array(k);
   for (const mat of [v, uv]) {
     for (let r = 0; r < n; r++) {

@@ -1,7 +1,8 @@
 /**
  * How many eigenvalues a banded unitary U has on an arc of the unit circle,
  * without computing them: Sylvester's law of inertia applied to a banded
- * Hermitian matrix congruent to the Cayley transform of U.
+ * Hermitian matrix congruent to the Cayley transform of U. (And, directly, how
+ * many a banded Hermitian H has in an interval: eigenvaluesInInterval.)
  *
  * With W = e^{−iθ}U (θ the centre of the arc), the Cayley transform
  * A = i(1 − W)(1 + W)⁻¹ is Hermitian with eigenvalues tan(ψ/2) for the
@@ -18,14 +19,14 @@
  * Sturm-sequence bisection). Cost O(n b²) per count, memory O(n b).
  *
  * The count is exact for the banded operator given; the caller compares it
- * with the eigenpairs its iterative search found (unitary-shift-invert.ts): two
+ * with the eigenpairs its iterative search found (banded-shift-invert.ts): two
  * independent routes agreeing is the certificate that no state was missed.
  * Eigenvalues within rounding of the arc's ends may be counted on either side.
  */
 import type { BandedMatrix } from './banded-matrix.ts';
 
-/** Number of negative eigenvalues of the Hermitian band matrix given by (re, im) rows of width 2b + 1, by unpivoted LDL†. */
-function negativePivots(n: number, b: number, re: Float64Array, im: Float64Array, scale: number): number {
+/** Number of negative eigenvalues of the Hermitian band matrix given by (re, im) rows of width 2b + 1, by unpivoted LDL† (overwrites re, im). */
+export function negativePivots(n: number, b: number, re: Float64Array, im: Float64Array, scale: number): number {
   const w = 2 * b + 1;
   const tiny = 1e-14 * scale;
   let negative = 0;
@@ -96,19 +97,41 @@ function countWithCut(u: BandedMatrix, centre: number, halfWidth: number, offset
 
 /**
  * Number of eigenvalues e^{iφ} of the unitary band matrix `u` with
- * |φ − centre| < halfWidth (radians, on the circle; halfWidth < π/2).
+ * |φ − centre| < halfWidth (radians, on the circle; halfWidth < π).
  * An eigenvalue on the Cayley cut (φ = θ + π) makes B(t) singular for every t;
- * the count is therefore taken with two cuts (θ = centre and θ = centre +
- * halfWidth/3, both far from the arc) and accepted when they agree, else with
- * further cuts; null when no two agree.
+ * the count is therefore taken with two cuts (θ = centre and a cut moved by a
+ * third of the room left between the arc and the opposite point) and accepted
+ * when they agree, else with further cuts; null when no two agree.
  */
 export function eigenvaluesOnArc(u: BandedMatrix, centre: number, halfWidth: number): number | null {
-  if (!(halfWidth > 0 && halfWidth < Math.PI / 2)) throw new RangeError(`eigenvaluesOnArc: half-width must lie in (0, π/2), got ${halfWidth}`);
+  if (!(halfWidth > 0 && halfWidth < Math.PI)) throw new RangeError(`eigenvaluesOnArc: half-width must lie in (0, π), got ${halfWidth}`);
+  const room = Math.min(halfWidth, Math.PI - halfWidth) / 3;
   const counts: number[] = [];
-  for (const offset of [0, halfWidth / 3, -halfWidth / 5, halfWidth / 7]) {
+  for (const offset of [0, room, -room / 2, room / 3]) {
     const c = countWithCut(u, centre, halfWidth, offset);
     if (c >= 0 && counts.includes(c)) return c;
     counts.push(c);
   }
   return null;
+}
+
+/**
+ * Number of eigenvalues of the Hermitian band matrix `h` in the open interval
+ * (lower, upper): ν(H − upper) − ν(H − lower), the same inertia count (H − E
+ * is band storage already, no congruence needed).
+ */
+export function eigenvaluesInInterval(h: BandedMatrix, lower: number, upper: number): number {
+  const { n, b } = h;
+  const w = 2 * b + 1;
+  const shifted = (e: number) => {
+    const re = Float64Array.from(h.re), im = Float64Array.from(h.im);
+    let scale = 0;
+    for (let i = 0; i < n; i++) {
+      re[i * w + b] -= e;
+      im[i * w + b] = 0;
+      for (let d = 0; d < w; d++) scale = Math.max(scale, Math.abs(re[i * w + d]) + Math.abs(im[i * w + d]));
+    }
+    return negativePivots(n, b, re, im, Math.max(scale, 1e-300));
+  };
+  return shifted(upper) - shifted(lower);
 }

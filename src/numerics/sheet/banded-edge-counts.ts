@@ -2,10 +2,10 @@
  * Signed edge counts from only the ribbon states near each gap label: the
  * route for wide ribbons, in work and memory linear in the width.
  *
- * At each momentum k∥ the Floquet operator is a band matrix
- * (banded-propagator.ts). For the gap named by c, the states on the window
- * |ε − c| < h are found by shift-and-invert around e^{−iπc}, and their number
- * is checked against an exact inertia count (unitary-shift-invert.ts,
+ * At each momentum k∥ the Floquet operator (or, for a static ribbon, the
+ * Hamiltonian) is a band matrix. For the gap named by c, the states on the
+ * window |ε − c| < h are found by shift-and-invert, and their number is checked
+ * against an exact inertia count (ribbon-windows.ts, banded-shift-invert.ts,
  * unitary-window-count.ts); h is WINDOW_FRACTION of the distance from c to the
  * nearer bulk band edge, so every state in the window is a boundary state or
  * a bulk state pushed there by the finite width.
@@ -39,10 +39,9 @@
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
 import { zeros } from '../linalg/complex-matrix.ts';
 import { HermitianEigen } from '../linalg/hermitian-eigen.ts';
-import { eigenpairsOnArc } from '../linalg/unitary-shift-invert.ts';
-import type { BandedFloquet } from '../evolution/banded-propagator.ts';
 import type { EdgeCountReport, EdgeCrossing } from '../portrait.ts';
-import { aboveCut, circularDifference, wrapQuasienergy } from '../quasienergy-bands.ts';
+import { aboveCut, circularDifference } from '../quasienergy-bands.ts';
+import type { WindowSource } from './ribbon-windows.ts';
 import type { EdgeCountOptions, GapArc } from './edge-modes.ts';
 import { fitDecayLength, judgeEdgeCounts } from './edge-modes.ts';
 import { columnCellWeights } from './ribbon.ts';
@@ -96,6 +95,8 @@ export interface BandedGapCounts {
   baseMomenta: number;
   /** Largest bound on the error of a window quasienergy (units π/T). */
   largestError: number;
+  /** Largest truncation bound of the band operators used (radians). */
+  largestTruncation: number;
 }
 
 interface WindowStates {
@@ -119,10 +120,11 @@ interface GapState {
   decay: number;
   momenta: number;
   largestError: number;
+  largestTruncation: number;
 }
 
 /** Edge counts in every gap of `gaps` on the ribbon whose banded Floquet operators `propagator` gives. */
-export function bandedEdgeCounts(propagator: BandedFloquet, gaps: BandedGap[], options: BandedCountOptions): BandedGapCounts[] {
+export function bandedEdgeCounts(source: WindowSource, gaps: BandedGap[], options: BandedCountOptions): BandedGapCounts[] {
   const { width, edgeCells, orbitalsPerCell } = options;
   const localisation = options.localisation ?? 0.5;
   const trackingOverlap = options.trackingOverlap ?? 0.5;
@@ -133,7 +135,7 @@ export function bandedEdgeCounts(propagator: BandedFloquet, gaps: BandedGap[], o
   const states: GapState[] = gaps.map((gap) => {
     const c = gap.arc.label;
     const h = Math.min(MAX_WINDOW, WINDOW_FRACTION * Math.min(aboveCut(c, gap.arc.lower), aboveCut(gap.arc.upper, c)));
-    return { gap, c, h, first: null, previous: null, crossings: { low: [], high: [] }, problems: new Set(), decay: 0, momenta: 0, largestError: 0 };
+    return { gap, c, h, first: null, previous: null, crossings: { low: [], high: [] }, problems: new Set(), decay: 0, momenta: 0, largestError: 0, largestTruncation: 0 };
   });
   // An even number of points: (j + 1/2)/n then never equals 1/2.
   const even = (x: number) => 2 * Math.ceil(x / 2);
@@ -155,18 +157,17 @@ export function bandedEdgeCounts(propagator: BandedFloquet, gaps: BandedGap[], o
     return [lo, hi];
   };
 
-  const windowAt = (g: GapState, k: number, u: ReturnType<BandedFloquet['at']>, start?: ComplexMatrix): WindowStates => {
+  const windowAt = (g: GapState, k: number, start?: ComplexMatrix): WindowStates => {
     g.momenta++;
-    const arc = eigenpairsOnArc(u.operator, -Math.PI * g.c, Math.PI * g.h, { tolerance, ...(start && start.cols > 0 ? { start } : {}) });
-    if (!arc.converged) g.problems.add(`at k∥ = ${k.toFixed(5)}: ${arc.caveat ?? 'the states near the label were not all found'}`);
-    const m = arc.phases.length;
-    splitDegenerate(arc.phases, arc.vectors, edgeCells, orbitalsPerCell);
-    const eps = Float64Array.from(arc.phases, (p) => wrapQuasienergy(-p / Math.PI));
-    const error = Float64Array.from(arc.residuals, (r) => (r + u.truncation + u.accuracy) / Math.PI);
-    for (const e of error) g.largestError = Math.max(g.largestError, e);
+    const found = source.at(k, g.c, g.h, start);
+    if (found.caveat !== undefined) g.problems.add(`at k∥ = ${(k - Math.floor(k)).toFixed(5)}: ${found.caveat}`);
+    const m = found.eps.length;
+    splitDegenerate(found.eps, found.vectors, edgeCells, orbitalsPerCell);
+    for (const e of found.error) g.largestError = Math.max(g.largestError, e);
+    g.largestTruncation = Math.max(g.largestTruncation, found.truncation);
     const low = new Float64Array(m), high = new Float64Array(m);
-    for (let j = 0; j < m; j++) [low[j], high[j]] = edgeWeights(arc.vectors, j);
-    return { k, eps, error, vectors: arc.vectors, low, high };
+    for (let j = 0; j < m; j++) [low[j], high[j]] = edgeWeights(found.vectors, j);
+    return { k, eps: found.eps, error: found.error, vectors: found.vectors, low, high };
   };
 
   const track = (g: GapState, a: WindowStates, b: WindowStates, depth: number): void => {
@@ -207,7 +208,7 @@ export function bandedEdgeCounts(propagator: BandedFloquet, gaps: BandedGap[], o
     if (refine) {
       if (depth < maxDepth) {
         const km = a.k + SPLIT * (b.k - a.k);
-        const mid = windowAt(g, km, propagator.at([km - Math.floor(km)]), a.vectors);
+        const mid = windowAt(g, km, a.vectors);
         track(g, a, mid, depth + 1);
         track(g, mid, b, depth + 1);
         return;
@@ -240,9 +241,8 @@ export function bandedEdgeCounts(propagator: BandedFloquet, gaps: BandedGap[], o
   for (let step = 0; step <= base; step++) {
     const k = (step + 0.5) / base;
     // The last step returns to the first momentum, one period later (k and k + 1 are the same operator).
-    const u = step < base ? propagator.at([k]) : null;
     for (const g of states) {
-      const here = step < base ? windowAt(g, k, u!, g.previous?.vectors) : { ...g.first!, k };
+      const here = step < base ? windowAt(g, k, g.previous?.vectors) : { ...g.first!, k };
       if (g.previous !== null) track(g, g.previous, here, 0);
       if (step === 0) g.first = here;
       g.previous = here;
@@ -261,7 +261,7 @@ export function bandedEdgeCounts(propagator: BandedFloquet, gaps: BandedGap[], o
       bulkDecayLength: g.gap.bulkDecayLength,
       widthPerDecayLength: widthRatio,
     });
-    return { reports, window: g.h, momenta: g.momenta, baseMomenta: base, largestError: g.largestError };
+    return { reports, window: g.h, momenta: g.momenta, baseMomenta: base, largestError: g.largestError, largestTruncation: g.largestTruncation };
   });
 }
 
@@ -284,15 +284,15 @@ function overlaps(a: ComplexMatrix, b: ComplexMatrix): Float64Array {
 }
 
 /**
- * Inside every group of eigenphases closer than DEGENERATE_PHASE, rotates the
+ * Inside every group of quasienergies closer than DEGENERATE_PHASE/π (ordered), rotates the
  * columns to diagonalise the weight in the first `edgeCells` cells: degenerate
  * states of the two edges come out separated, one per edge.
  */
-function splitDegenerate(phases: Float64Array, v: ComplexMatrix, edgeCells: number, orbitalsPerCell: number): void {
-  const m = phases.length;
+function splitDegenerate(eps: Float64Array, v: ComplexMatrix, edgeCells: number, orbitalsPerCell: number): void {
+  const m = eps.length;
   let start = 0;
   for (let j = 1; j <= m; j++) {
-    if (j < m && Math.abs(circularDifference(phases[j] / Math.PI, phases[j - 1] / Math.PI)) * Math.PI < DEGENERATE_PHASE) continue;
+    if (j < m && Math.abs(circularDifference(eps[j], eps[j - 1])) * Math.PI < DEGENERATE_PHASE) continue;
     if (j - start > 1) rotateByLowWeight(v, Array.from({ length: j - start }, (_, t) => start + t), edgeCells * orbitalsPerCell);
     start = j;
   }

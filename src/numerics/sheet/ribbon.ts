@@ -14,6 +14,18 @@
  * often degenerate at a gap's label and the eigensolver would return arbitrary
  * mixtures of them.
  *
+ * Floquet operators are band matrices (banded-propagator.ts: products of
+ * exact block exponentials for step drives, Chebyshev expansions with a
+ * stated error otherwise), diagonalised by the banded route of
+ * banded-unitary-eigen.ts, which certifies itself and falls back to the dense
+ * eigensolver. The rotation it needs comes from the spectrum at the previous
+ * momentum. Time-dependent segments keep the Magnus slice counts settled on a
+ * narrow copy of the ribbon (banded-propagator.ts, openBandedFloquet).
+ *
+ * Every state also gets the edge-localisation measure of
+ * ../edge-localisation.ts (weight in the outer few decay lengths against that
+ * of an evenly spread state), which the site colours states by.
+ *
  * Static drives (one constant Hamiltonian over the whole period, no kicks):
  * U = e^{−iHT} has the eigenvectors of H and the eigenphases −E T, so the
  * ribbon spectrum comes from one Hermitian eigen-decomposition per momentum
@@ -24,13 +36,17 @@
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
 import { zeros } from '../linalg/complex-matrix.ts';
-import { HermitianEigen } from '../linalg/hermitian-eigen.ts';
+import { BandedMatrix } from '../linalg/banded-matrix.ts';
+import { bandedHermitianEigen } from '../linalg/banded-hermitian-eigen.ts';
+import { bandedUnitaryEigen, rotationFor } from '../linalg/banded-unitary-eigen.ts';
 import type { LatticeDrive } from '../evolution/drive.ts';
-import { prepareBloch } from '../evolution/bloch.ts';
+import { driveBandwidth, prepareBloch } from '../evolution/bloch.ts';
 import type { PropagatorOptions } from '../evolution/propagator.ts';
+import { openBandedFloquet } from '../evolution/banded-propagator.ts';
 import type { FloquetSample } from '../quasienergy-bands.ts';
-import { FloquetSampler, wrapQuasienergy } from '../quasienergy-bands.ts';
+import { quasienergiesFromEigenphases, wrapQuasienergy } from '../quasienergy-bands.ts';
 import { truncateDrive } from '../supercell.ts';
+import { localisationRegion, regionWeights, stateLocalisation } from '../edge-localisation.ts';
 
 export interface RibbonOptions {
   /** Index of the lattice vector along which the ribbon is finite (default 0). */
@@ -41,6 +57,8 @@ export interface RibbonOptions {
   edgeCells?: number;
   /** Number of momenta along the edge (default 200). */
   momenta?: number;
+  /** Largest decay length expected for edge states (cells): sets the localisation region (edge-localisation.ts). */
+  decayLength?: number;
   propagator?: PropagatorOptions;
 }
 
@@ -59,10 +77,18 @@ export interface RibbonSpectrum {
   /** Weight of each state (column) in the low / high edge region, per momentum. */
   lowEdgeWeight: number[][];
   highEdgeWeight: number[][];
+  /** Cells of each localisation region and the weight u an evenly spread state has there (edge-localisation.ts). */
+  localisationCells: number;
+  uniformWeight: number;
+  /** Edge-localisation measure of each state on the low / high edge, per momentum. */
+  lowLocalisation: number[][];
+  highLocalisation: number[][];
   /** Largest propagator accuracy estimate over the momenta. */
   propagatorAccuracy: number;
   /** Largest bound on ‖UV − VΛ‖_F over the momenta. */
   eigenResidual: number;
+  /** Largest bound on ‖U_band − U‖₂ over the momenta (Chebyshev tails and band truncations, radians; 0 for exact step factors). */
+  truncation: number;
   /** 'hermitian': static drive, eigenvectors of H; 'floquet': eigen-decomposition of U(T). */
   route: 'hermitian' | 'floquet';
 }
@@ -102,34 +128,15 @@ export function staticSegmentIndex(drive: LatticeDrive): number {
   return prepareBloch(drive, probe).isConstant(index) ? index : -1;
 }
 
-/** ‖HV − V diag(E)‖_F for eigenpairs (E, V) of H. */
-function hermitianResidual(h: ComplexMatrix, values: Float64Array, v: ComplexMatrix): number {
-  const n = h.rows;
-  let s = 0;
-  for (let r = 0; r < n; r++) {
-    for (let c = 0; c < n; c++) {
-      let re = -values[c] * v.re[r * n + c], im = -values[c] * v.im[r * n + c];
-      for (let k = 0; k < n; k++) {
-        const hr = h.re[r * n + k], hi = h.im[r * n + k];
-        if (hr === 0 && hi === 0) continue;
-        const xr = v.re[k * n + c], xi = v.im[k * n + c];
-        re += hr * xr - hi * xi;
-        im += hr * xi + hi * xr;
-      }
-      s += re * re + im * im;
-    }
-  }
-  return Math.sqrt(s);
-}
-
 /**
  * The Floquet spectrum at momentum `s` of a static drive whose Hamiltonian is
- * segment `segment` (see staticSegmentIndex), from the eigen-decomposition of H.
+ * segment `segment` (see staticSegmentIndex), from the eigen-decomposition of
+ * the banded H (banded-hermitian-eigen.ts).
  */
 export function staticFloquetSample(drive: LatticeDrive, segment: number, s: number[]): FloquetSample {
-  const h = prepareBloch(drive, s).segmentAt(segment, 0);
-  const eig = new HermitianEigen(h);
-  const n = h.rows;
+  const n = drive.states.length;
+  const h = prepareBloch(drive, s).segmentAtBanded(segment, 0, new BandedMatrix(n, driveBandwidth(drive)));
+  const eig = bandedHermitianEigen(h);
   const period = drive.period;
   // U = e^{−iHT}: eigenphase −E T, quasienergy E folded, in units π/T.
   const raw = Array.from(eig.values, (e) => wrapQuasienergy((e * period) / Math.PI));
@@ -146,7 +153,7 @@ export function staticFloquetSample(drive: LatticeDrive, segment: number, s: num
     momentum: s.slice(),
     quasienergies: Float64Array.from(order, (i) => raw[i]),
     vectors,
-    eigenResidual: period * hermitianResidual(h, eig.values, eig.vectors),
+    eigenResidual: period * eig.residual,
     propagatorAccuracy: 0,
   };
 }
@@ -166,33 +173,57 @@ export function ribbonSpectrum(drive: LatticeDrive, options: RibbonOptions = {})
   const ribbon = truncateDrive(drive, finiteDirection, width);
   const orbitalsPerCell = drive.states.length;
   const staticIndex = staticSegmentIndex(ribbon);
-  const sampler = new FloquetSampler(ribbon, { propagator: options.propagator });
-  const sampleAt = (s: number): FloquetSample => (staticIndex >= 0 ? staticFloquetSample(ribbon, staticIndex, [s]) : sampler.at([s]));
+  const floquet = staticIndex >= 0 ? null : openBandedFloquet(drive, finiteDirection, width, options.propagator);
+  let rotation: number | undefined;
+  let propagatorAccuracy = 0, truncation = 0;
+  const sampleAt = (s: number): FloquetSample => {
+    if (staticIndex >= 0) return staticFloquetSample(ribbon, staticIndex, [s]);
+    const u = floquet!.at([s]);
+    const eig = bandedUnitaryEigen(u.operator, rotation);
+    rotation = rotationFor(eig.phases);
+    propagatorAccuracy = Math.max(propagatorAccuracy, u.accuracy / Math.PI);
+    truncation = Math.max(truncation, u.truncation);
+    const { values, order } = quasienergiesFromEigenphases(eig.phases);
+    const n = eig.vectors.rows;
+    const vectors = zeros(n, n);
+    for (let r = 0; r < n; r++) {
+      for (let c = 0; c < n; c++) {
+        vectors.re[r * n + c] = eig.vectors.re[r * n + order[c]];
+        vectors.im[r * n + c] = eig.vectors.im[r * n + order[c]];
+      }
+    }
+    // The banded operator is within `truncation` of U: residuals against U grow by at most that.
+    return { momentum: [s], quasienergies: values, vectors, eigenResidual: eig.residual + Math.sqrt(n) * u.truncation, propagatorAccuracy: u.accuracy / Math.PI };
+  };
+  const region = localisationRegion(width, options.decayLength);
   let eigenResidual = 0;
   const momenta: number[] = [];
   const samples: FloquetSample[] = [];
   const lowEdgeWeight: number[][] = [];
   const highEdgeWeight: number[][] = [];
+  const lowLocalisation: number[][] = [];
+  const highLocalisation: number[][] = [];
   for (let j = 0; j < count; j++) {
     const s = (j + 0.5) / count;
     const sample = sampleAt(s);
     eigenResidual = Math.max(eigenResidual, sample.eigenResidual);
     momenta.push(s);
     samples.push(sample);
-    const low: number[] = [];
-    const high: number[] = [];
+    const low: number[] = [], high: number[] = [], lowRegion: number[] = [], highRegion: number[] = [];
     for (let c = 0; c < sample.vectors.cols; c++) {
       const w = cellWeights(sample, c, orbitalsPerCell);
-      let lo = 0, hi = 0;
-      for (let e = 0; e < edgeCells; e++) {
-        lo += w[e];
-        hi += w[width - 1 - e];
-      }
+      const [lo, hi] = regionWeights(w, edgeCells);
       low.push(lo);
       high.push(hi);
+      const [rl, rh] = regionWeights(w, region.cells);
+      lowRegion.push(rl);
+      highRegion.push(rh);
     }
     lowEdgeWeight.push(low);
     highEdgeWeight.push(high);
+    const measure = stateLocalisation(sample.quasienergies, lowRegion, highRegion, region);
+    lowLocalisation.push(measure.low);
+    highLocalisation.push(measure.high);
   }
   return {
     finiteDirection,
@@ -203,8 +234,13 @@ export function ribbonSpectrum(drive: LatticeDrive, options: RibbonOptions = {})
     samples,
     lowEdgeWeight,
     highEdgeWeight,
-    propagatorAccuracy: sampler.worstPropagatorAccuracy,
+    localisationCells: region.cells,
+    uniformWeight: region.uniformWeight,
+    lowLocalisation,
+    highLocalisation,
+    propagatorAccuracy,
     eigenResidual,
+    truncation,
     route: staticIndex >= 0 ? 'hermitian' : 'floquet',
   };
 }

@@ -25,8 +25,7 @@ import { verdictPropagatorTolerance } from '../evolution/propagator.ts';
 import type { QuasienergyGrid } from '../quasienergy-bands.ts';
 import { aboveCut, FloquetSampler, gridNeighbour, sampleQuasienergyGrid } from '../quasienergy-bands.ts';
 import type { EdgeCountOptions } from './edge-modes.ts';
-import { countEdgeModes } from './edge-modes.ts';
-import { ribbonSpectrum } from './ribbon.ts';
+import { ribbonEdgeCounts } from './ribbon-edge-counts.ts';
 import type { WindingOptions } from './winding/gap-winding.ts';
 import { gapWindingNumbers } from './winding/gap-winding.ts';
 import type { DeclaredOperators } from '../symmetry/altland-zirnbauer.ts';
@@ -36,12 +35,16 @@ import { declaredSymmetryReports } from '../symmetry/declared-symmetries.ts';
 export interface SheetRibbonOptions {
   /** Finite directions to cut (default both, [0, 1]). */
   directions?: number[];
-  /** Width in cells (default 24). */
+  /** Starting width in cells (default 24); widened to 6 decay lengths within maxWidth (ribbon-edge-counts.ts). */
   width?: number;
+  /** Width budget in cells (default 16000 states' worth). */
+  maxWidth?: number;
   /** Cells per edge region (default ⌊width/4⌋). */
   edgeCells?: number;
-  /** Momenta along the edge (default 200). */
+  /** Momenta along the edge (default 200 on the dense route). */
   momenta?: number;
+  /** Ribbons with at most this many states take the dense route (default 240). */
+  denseStates?: number;
 }
 
 export interface SheetOptions {
@@ -192,25 +195,19 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   const ribbons: RibbonReport[] = [];
   if (run.edges && ordered.length > 0) {
     for (const direction of options.ribbon?.directions ?? [0, 1]) {
-      const spectrum = ribbonSpectrum(drive, {
-        finiteDirection: direction,
-        width: options.ribbon?.width,
-        edgeCells: options.ribbon?.edgeCells,
-        momenta: options.ribbon?.momenta,
-        propagator: ribbonPropagator,
-      });
-      const counts: EdgeCountReport[] = [];
-      for (const gap of ordered) counts.push(...countEdgeModes(spectrum, gap, bulkDecayLength(data, gap, direction), options.edges));
-      ribbons.push({
-        finiteDirection: direction,
-        width: spectrum.width,
-        edgeCells: spectrum.edgeCells,
-        momenta: spectrum.momenta,
-        quasienergies: spectrum.samples.map((s) => Array.from(s.quasienergies)),
-        lowEdgeWeight: spectrum.lowEdgeWeight,
-        highEdgeWeight: spectrum.highEdgeWeight,
-        counts,
-      });
+      const gaps = ordered.map((gap) => ({ arc: gap, bulkDecayLength: bulkDecayLength(data, gap, direction) }));
+      ribbons.push(
+        ribbonEdgeCounts(drive, gaps, {
+          finiteDirection: direction,
+          ...(options.ribbon?.width !== undefined ? { width: options.ribbon.width } : {}),
+          ...(options.ribbon?.maxWidth !== undefined ? { maxWidth: options.ribbon.maxWidth } : {}),
+          ...(options.ribbon?.edgeCells !== undefined ? { edgeCells: options.ribbon.edgeCells } : {}),
+          ...(options.ribbon?.momenta !== undefined ? { momenta: options.ribbon.momenta } : {}),
+          ...(options.ribbon?.denseStates !== undefined ? { denseStates: options.ribbon.denseStates } : {}),
+          propagator: ribbonPropagator,
+          ...(options.edges !== undefined ? { edges: options.edges } : {}),
+        }),
+      );
     }
   }
   timings.edges = clock() - t;

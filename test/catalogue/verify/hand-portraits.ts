@@ -44,9 +44,13 @@ export function chernEstimate(value: number): ChernEstimate {
 
 /** A ribbon finite along a₂ of `width` cells with the given signed counts per gap and edge. */
 export function ribbon(width: number, counts: { gap: number; edge: 'low' | 'high'; count: number }[]): RibbonReport {
+  const rows = (x: number) => [[x, x], [x, x], [x, x], [x, x]];
   return {
-    finiteDirection: 1, width, edgeCells: 4, momenta: [0, 0.25, 0.5, 0.75], quasienergies: [[-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5]],
-    lowEdgeWeight: [[0, 0], [0, 0], [0, 0], [0, 0]], highEdgeWeight: [[0, 0], [0, 0], [0, 0], [0, 0]],
+    finiteDirection: 1, width, widths: [width], widthBudget: width, edgeCells: 4, route: 'dense', momenta: 4, truncation: 0,
+    spectrum: {
+      width, edgeCells: 4, momenta: [0, 0.25, 0.5, 0.75], quasienergies: [[-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5], [-0.5, 0.5]],
+      lowEdgeWeight: rows(0), highEdgeWeight: rows(0), localisationCells: 1, uniformWeight: 1 / width, lowLocalisation: rows(0), highLocalisation: rows(0),
+    },
     counts: counts.map(({ gap, edge, count }) => ({
       gap, edge, count, crossings: [{ momentum: 0.5, direction: (count >= 0 ? 1 : -1) as 1 | -1, weight: 0.9 }],
       decayLength: 1.5, width, settled: true,
