@@ -10,11 +10,25 @@
  * checksum on read, is reported as corrupt, removed, and recomputed.
  */
 import { mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { sha256Hex } from './cache-key.ts';
 
 export const CACHE_FORMAT = 1;
+
+/** Environment variable naming the cache directory (shared between jobs, restored and saved by CI). */
+export const CACHE_DIR_VARIABLE = 'STROBE_CACHE_DIR';
+
+/**
+ * The cache directory: the command-line option, else $STROBE_CACHE_DIR, else
+ * .strobe-cache/ in the working directory. Entries are content-addressed
+ * (cache-key.ts) and written atomically, so jobs running at the same time, on
+ * one machine or sharing a directory, never see half an entry.
+ */
+export function cacheRoot(option?: string, env: Record<string, string | undefined> = process.env): string {
+  const chosen = option ?? env[CACHE_DIR_VARIABLE];
+  return chosen !== undefined && chosen.trim() !== '' ? resolve(chosen) : join(process.cwd(), '.strobe-cache');
+}
 
 export type CacheLookup<T> =
   | { state: 'hit'; value: T }
@@ -32,7 +46,7 @@ export class ResultCache {
   readonly root: string;
   readonly stats: CacheStats = { hits: 0, misses: 0, corrupt: 0, writes: 0 };
 
-  constructor(root: string = join(process.cwd(), '.strobe-cache')) {
+  constructor(root: string = cacheRoot()) {
     this.root = root;
   }
 

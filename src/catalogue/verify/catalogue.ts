@@ -3,6 +3,13 @@
  * cache, verify the rest in worker threads, and return records sorted by id
  * with the catalogue summary. Results do not depend on the number of workers
  * or the order in which models finish.
+ *
+ * Sharded runs (--shard i/n, n > 1) split the work two ways: each model's
+ * claims are verified by the one shard that owns the model (shard.ts), and the
+ * points of every declared sweep are spread over all shards (point p to shard
+ * (p mod n) + 1). A shard's records then carry no sweeps; its points come back
+ * as sweep parts (sweep-part.ts), and `strobe merge` puts the records together
+ * again, identical to those of a whole run.
  */
 import { join } from 'node:path';
 import type { LoadedModel, ModelFailure } from '../load.ts';
@@ -27,6 +34,13 @@ import { budgetIssue, limitsFor, type LimitOptions } from '../budget/limits.ts';
 import type { VerdictPolicy } from './policy.ts';
 import { DEFAULT_POLICY } from './policy.ts';
 import type { ModelOutcome } from './verify-model.ts';
+import { modelSetup } from './verify-model.ts';
+import type { EngineSet } from './engines.ts';
+import { realEngines } from './real-engines.ts';
+import { pointCacheFor, runSweepPoints, sweepSize } from '../sweep/sweep-grid.ts';
+import type { SweepPart } from '../sweep/sweep-part.ts';
+import { makeSweepPart } from '../sweep/sweep-part.ts';
+import { shardOfPoint } from '../shard.ts';
 
 export interface ProgressEvent {
   id: string;
@@ -62,6 +76,8 @@ export interface VerifyCatalogueOptions extends LimitOptions {
   taskModule?: string;
   /** Engine identity override (tests). */
   engine?: EngineFingerprint;
+  /** Engines for the sweep points of a sharded run (default the real ones). */
+  engines?: EngineSet;
 }
 
 export interface CatalogueReport {
@@ -72,6 +88,8 @@ export interface CatalogueReport {
   cache: CacheStats | null;
   /** Corrupt cache entries found (and recomputed), with the reason. */
   cacheProblems: string[];
+  /** Sharded runs: this shard's points of every declared sweep of every model (records then carry no sweeps). */
+  sweepParts: SweepPart[];
 }
 
 export function defaultTaskModule(): string {
@@ -79,8 +97,8 @@ export function defaultTaskModule(): string {
 }
 
 /** The cache key of one loaded model under an engine and policy. */
-export function modelCacheKey(model: LoadedModel, engine: EngineFingerprint, policy: VerdictPolicy, overrides?: Record<string, number>): string {
-  return cacheKey({ content: model.document, engine, options: { policy }, ...(overrides ? { overrides } : {}) });
+export function modelCacheKey(model: LoadedModel, engine: EngineFingerprint, policy: VerdictPolicy, overrides?: Record<string, number>, deferSweeps = false): string {
+  return cacheKey({ content: model.document, engine, options: deferSweeps ? { policy, sweeps: 'deferred' } : { policy }, ...(overrides ? { overrides } : {}) });
 }
 
 /** Record ids of the files that did not load: the id they claim, else one made from the file name; never one in use. */
@@ -136,6 +154,7 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
     emit({ ...invalidRecord(identity, id, failure.file, failure.diagnostics), sourceHash: failure.sourceHash }, { totalMs: 0, stages: {}, cached: false });
   });
 
+  const deferSweeps = options.shard !== undefined && options.shard.count > 1;
   const models = loaded.models.filter((m) => inShard(m.id, options.shard)).sort((a, b) => compareCodePoints(a.id, b.id));
   const total = models.length;
   const pending: { model: LoadedModel; key: string; index: number; budget: BudgetRecord }[] = [];
@@ -147,7 +166,7 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
       options.onProgress?.({ id: model.id, index, total, step: 'over-budget', elapsedMs: 0 });
       return;
     }
-    const key = modelCacheKey(model, engine, policy);
+    const key = modelCacheKey(model, engine, policy, undefined, deferSweeps);
     const hit = cache?.read<ModelOutcome>(key);
     if (hit?.state === 'hit') {
       emit(hit.value.record, { totalMs: 0, stages: hit.value.timings.stages, cached: true }, { model, budget });
@@ -158,7 +177,7 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
     pending.push({ model, key, index, budget });
   });
 
-  const tasks: VerifyTask[] = pending.map(({ model }) => ({ model, engine: identity, policy }));
+  const tasks: VerifyTask[] = pending.map(({ model }) => ({ model, engine: identity, policy, ...(deferSweeps ? { deferSweeps } : {}), ...(cache ? { cacheRoot: cache.root } : {}) }));
   const started = new Map<number, number>();
   await runTasks<VerifyTask, ModelOutcome>(tasks, {
     entry: options.taskModule ?? defaultTaskModule(),
@@ -187,5 +206,31 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
 
   records.sort((a, b) => compareCodePoints(a.id, b.id) || compareCodePoints(a.file, b.file));
   const summary = summarize(records, identity, options.shard ? formatShard(options.shard) : null);
-  return { records, summary, timings, cache: cache ? { ...cache.stats } : null, cacheProblems };
+  const sweepParts = deferSweeps ? shardSweepParts(loaded.models, options.shard!, identity, policy, options.engines ?? realEngines, cache) : [];
+  return { records, summary, timings, cache: cache ? { ...cache.stats } : null, cacheProblems, sweepParts };
+}
+
+/**
+ * This shard's points of the declared sweeps of every model (not only the
+ * models the shard owns), computed here in order, each point taken from and
+ * kept in the cache. A model whose sweeps do not evaluate has none (its
+ * owner's record says why).
+ */
+function shardSweepParts(models: LoadedModel[], shard: ShardSpec, engine: { version: string; numericsHash: string }, policy: VerdictPolicy, engines: EngineSet, cache: ResultCache | null): SweepPart[] {
+  const parts: SweepPart[] = [];
+  for (const model of [...models].sort((a, b) => compareCodePoints(a.id, b.id))) {
+    if ((model.document.sweeps ?? []).length === 0) continue;
+    let setup;
+    try {
+      setup = modelSetup(model);
+    } catch {
+      continue;
+    }
+    for (const [position, spec] of setup.sweeps.entries()) {
+      const indices = Array.from({ length: sweepSize(spec) }, (_, i) => i).filter((i) => shardOfPoint(i, shard.count) === shard.index);
+      const points = runSweepPoints(model, setup.claims, engines, policy, spec, setup.symmetricTimes, indices, undefined, cache ? pointCacheFor(cache, model, engine, policy, spec.quantities) : undefined);
+      parts.push(makeSweepPart(engine, { id: model.id, file: model.file, document: model.document }, spec, shard, indices.map((index, k) => ({ index, point: points[k] })), position));
+    }
+  }
+  return parts;
 }

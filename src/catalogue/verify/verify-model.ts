@@ -15,7 +15,8 @@ import type { ModelRecord, ModelTimings } from '../records/model-record.ts';
 import { RECORD_FORMAT } from '../records/model-record.ts';
 import type { EngineIdentity } from '../records/record-builder.ts';
 import { driveSummary, failedRecord, invalidRecord, modelMetadata, parameterRecords, recordDiagnostic } from '../records/record-builder.ts';
-import { runSweepGrid, type SweepQuantity } from '../sweep/sweep-grid.ts';
+import { pointCacheFor, runSweepGrid, type SweepSpec } from '../sweep/sweep-grid.ts';
+import type { ResultCache } from '../cache/store.ts';
 import { ANOMALOUS_DEFINITION } from './anomalous.ts';
 import type { NormalizedClaim } from './claims.ts';
 import { normalizeClaims } from './claims.ts';
@@ -33,7 +34,7 @@ export interface ModelOutcome {
   timings: ModelTimings;
 }
 
-class QuantityProblem extends Error {
+export class QuantityProblem extends Error {
   constructor(readonly pointer: string, message: string, readonly hint?: string, readonly offsetInString?: number) {
     super(message);
   }
@@ -87,25 +88,29 @@ export function withSecondSize(engines: EngineSet): EngineSet {
   };
 }
 
-export function verifyModel(
-  loaded: LoadedModel,
-  engines: EngineSet,
-  engine: EngineIdentity,
-  policy: VerdictPolicy = DEFAULT_POLICY,
-  onStep: (step: string) => void = () => {},
-): ModelOutcome {
-  const start = performance.now();
-  const doc = loaded.document;
-  const timing = (stages: Record<string, number>): ModelTimings => ({ totalMs: performance.now() - start, stages, cached: false });
+/** How verification treats the model's declared sweeps. */
+export interface SweepHandling {
+  /** Leave them out of the record (a sharded run computes their points as parts: catalogue.ts). */
+  defer?: boolean;
+  /** Take and keep single points in this cache (sweep-grid.ts, pointCacheFor). */
+  cache?: ResultCache;
+}
 
-  let claims: NormalizedClaim[];
-  let symmetricTimes: number[];
-  let sweeps: { name: string; title: string | null; axes: { parameter: string; start: number; stop: number; count: number }[]; quantities: SweepQuantity[] }[];
-  try {
-    const evaluate = quantityEvaluator(loaded.parameters);
-    claims = normalizeClaims(doc, evaluate);
-    symmetricTimes = (doc.claims?.symmetries?.chiral?.symmetricTimes ?? []).map((q, i) => evaluate(q, `/claims/symmetries/chiral/symmetricTimes/${i}`));
-    sweeps = (doc.sweeps ?? []).map((s, i) => ({
+/** What verification evaluates from the file before running the engines: claims, frame times, declared sweeps. */
+export interface ModelSetup {
+  claims: NormalizedClaim[];
+  symmetricTimes: number[];
+  sweeps: SweepSpec[];
+}
+
+/** Claims, symmetric frame times and declared sweeps, evaluated; throws QuantityProblem for a quantity that will not evaluate. */
+export function modelSetup(loaded: LoadedModel): ModelSetup {
+  const doc = loaded.document;
+  const evaluate = quantityEvaluator(loaded.parameters);
+  return {
+    claims: normalizeClaims(doc, evaluate),
+    symmetricTimes: (doc.claims?.symmetries?.chiral?.symmetricTimes ?? []).map((q, i) => evaluate(q, `/claims/symmetries/chiral/symmetricTimes/${i}`)),
+    sweeps: (doc.sweeps ?? []).map((s, i) => ({
       name: s.name,
       title: s.title ?? null,
       axes: s.axes.map((a, j) => ({
@@ -115,12 +120,31 @@ export function verifyModel(
         count: a.count,
       })),
       quantities: [...s.quantities],
-    }));
+    })),
+  };
+}
+
+export function verifyModel(
+  loaded: LoadedModel,
+  engines: EngineSet,
+  engine: EngineIdentity,
+  policy: VerdictPolicy = DEFAULT_POLICY,
+  onStep: (step: string) => void = () => {},
+  sweepHandling: SweepHandling = {},
+): ModelOutcome {
+  const start = performance.now();
+  const doc = loaded.document;
+  const timing = (stages: Record<string, number>): ModelTimings => ({ totalMs: performance.now() - start, stages, cached: false });
+
+  let setup: ModelSetup;
+  try {
+    setup = modelSetup(loaded);
   } catch (error) {
     if (!(error instanceof QuantityProblem)) throw error;
     const d = locatedDiagnostic(loaded, error.pointer, error.message, error.hint, error.offsetInString);
     return { record: invalidRecord(engine, loaded.id, loaded.file, [d, ...loaded.warnings], doc), timings: timing({}) };
   }
+  const { claims, symmetricTimes, sweeps } = setup;
 
   onStep('analysing');
   let point;
@@ -137,9 +161,10 @@ export function verifyModel(
 
   const sweepRecords = [];
   const sweepStart = performance.now();
-  for (const sweep of sweeps) {
+  for (const sweep of sweepHandling.defer ? [] : sweeps) {
     onStep(`sweep ${sweep.name}`);
-    sweepRecords.push(runSweepGrid(loaded, claims, engines, policy, sweep, symmetricTimes, (done, total) => onStep(`sweep ${sweep.name} ${done}/${total}`)));
+    const points = sweepHandling.cache ? pointCacheFor(sweepHandling.cache, loaded, engine, policy, sweep.quantities) : undefined;
+    sweepRecords.push(runSweepGrid(loaded, claims, engines, policy, sweep, symmetricTimes, (done, total) => onStep(`sweep ${sweep.name} ${done}/${total}`), points));
   }
   const stages: Record<string, number> = { ...point.stages, sweeps: performance.now() - sweepStart };
   const pathStart = performance.now();

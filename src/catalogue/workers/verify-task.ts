@@ -13,16 +13,24 @@ import type { ModelOutcome } from '../verify/verify-model.ts';
 import { verifyModel } from '../verify/verify-model.ts';
 import { realEngines } from '../verify/real-engines.ts';
 import { statusStep } from './status-step.ts';
+import { ResultCache } from '../cache/store.ts';
 
 export interface VerifyTask {
   model: LoadedModel;
   engine: EngineIdentity;
   policy: VerdictPolicy;
+  /** Leave the declared sweeps out (a sharded run computes their points as parts). */
+  deferSweeps?: boolean;
+  /** Directory of the result cache, for single sweep points (absent: no cache). */
+  cacheRoot?: string;
 }
 
 export function makeHandler(engines: EngineSet) {
   return (task: VerifyTask, report: (step: string) => void = () => {}): ModelOutcome => {
-    const outcome = verifyModel(task.model, engines, task.engine, task.policy, report);
+    const outcome = verifyModel(task.model, engines, task.engine, task.policy, report, {
+      ...(task.deferSweeps ? { defer: true } : {}),
+      ...(task.cacheRoot !== undefined ? { cache: new ResultCache(task.cacheRoot) } : {}),
+    });
     report(statusStep(outcome.record.status));
     return outcome;
   };

@@ -1,13 +1,14 @@
 /**
  * Terminal output and options of verification runs, for the `check` command
  * (which calls runVerifiedCheck) and `merge`:
- *   strobe check [paths…] [--workers N] [--no-cache] [--shard i/n] [--time-limit S]
+ *   strobe check [paths…] [--workers N] [--no-cache] [--cache-dir DIR]
+ *                [--shard i/n | --shard-from VAR/n [--shard-base 0|1]] [--time-limit S]
  *                [--strict] [--json] [--junit FILE] [--out DIR]
- *   strobe merge <summary.json…> [--out FILE]
+ *   strobe merge <summary.json | shard dir | sweep part…> [--out FILE]
  * Exit status: 0 unless a model is disputed, invalid or failed (1); --strict
  * also fails on unsettled models. Usage errors exit with 2.
  */
-import { readFileSync, writeFileSync, mkdirSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync, writeFileSync, mkdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { formatDiagnostic } from '../../catalogue/diagnostics.ts';
 import type { CatalogueReport, ProgressEvent } from '../../catalogue/verify/catalogue.ts';
@@ -20,7 +21,10 @@ import { mergeSummaries, MergeError } from '../../catalogue/records/summary.ts';
 import { reportProblems } from '../../catalogue/records/report-validation.ts';
 import { exitCodeFor } from '../../catalogue/verify/status.ts';
 import { junitXml, type JunitSuite } from '../../catalogue/junit.ts';
-import { parseShard, ShardSpecError, type ShardSpec } from '../../catalogue/shard.ts';
+import { resolveShard, ShardSpecError, type ShardSpec } from '../../catalogue/shard.ts';
+import { cacheRoot, ResultCache } from '../../catalogue/cache/store.ts';
+import { completeRecords, readSweepParts, writeSweepParts } from '../../catalogue/records/shard-records.ts';
+import { isSweepPart, mergeSweepParts, SweepMergeError, type SweepPart } from '../../catalogue/sweep/sweep-part.ts';
 import { modelStatusOfStep } from '../../catalogue/workers/status-step.ts';
 import { ANOMALOUS_LABEL, STATUS_LABEL, STATUS_ORDER, count, quantityName } from '../../catalogue/vocabulary.ts';
 
@@ -36,6 +40,7 @@ export interface CheckOptions {
   paths: string[];
   workers?: number;
   cache: boolean;
+  cacheDir?: string;
   shard?: ShardSpec;
   timeLimitSeconds?: number;
   memoryLimitBytes?: number;
@@ -50,7 +55,15 @@ export const describeCheckOptions = `Options of strobe check (verification):
                    where no time limit can stop a model: the work estimate still refuses
                    what is too large, and with --time-limit one worker thread is used)
   --no-cache       recompute every model (default: reuse .strobe-cache/ for unchanged models)
-  --shard i/n      verify only shard i of n (split by a hash of the model id) for parallel CI jobs
+  --cache-dir DIR  keep the result cache in DIR (default $STROBE_CACHE_DIR, else .strobe-cache/): a
+                   directory CI restores and saves, or one shared by the jobs of an array job
+  --shard i/n      run shard i of n for parallel jobs: the models of the shard (split by a hash of
+                   the model id) and the shard's points of every declared sweep (point p goes to
+                   shard (p mod n) + 1); join the shards with strobe merge
+  --shard-from VAR/n   the same, with i read from environment variable VAR (an array job's task
+                   index: SLURM_ARRAY_TASK_ID, PBS_ARRAY_INDEX, SGE_TASK_ID, LSB_JOBINDEX,
+                   CI_NODE_INDEX …; n may name a variable too, e.g. CI_NODE_INDEX/CI_NODE_TOTAL)
+  --shard-base 0|1 whether VAR counts from 0 or from 1 (default 1)
   --time-limit S   time limit per model, seconds, for every model (default: the model's
                    numerics.timeLimit, else ${DEFAULT_TIME_LIMIT_SECONDS} s). A model whose estimated work
                    exceeds it is refused before computing, naming the field and the
@@ -72,8 +85,9 @@ function takeValue(argv: string[], i: number, flag: string): string {
   return v;
 }
 
-export function parseCheckOptions(argv: string[]): CheckOptions {
+export function parseCheckOptions(argv: string[], env: Record<string, string | undefined> = process.env): CheckOptions {
   const o: CheckOptions = { paths: [], cache: true, strict: false, json: false, out: 'results' };
+  const shard: { shard?: string; shardFrom?: string; shardBase?: string } = {};
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     const [flag, inline] = a.startsWith('--') && a.includes('=') ? [a.slice(0, a.indexOf('=')), a.slice(a.indexOf('=') + 1)] : [a, undefined];
@@ -94,13 +108,17 @@ export function parseCheckOptions(argv: string[]): CheckOptions {
       case '--no-cache':
         o.cache = false;
         break;
+      case '--cache-dir':
+        o.cacheDir = value();
+        break;
       case '--shard':
-        try {
-          o.shard = parseShard(value());
-        } catch (e) {
-          if (e instanceof ShardSpecError) throw new UsageError(e.message);
-          throw e;
-        }
+        shard.shard = value();
+        break;
+      case '--shard-from':
+        shard.shardFrom = value();
+        break;
+      case '--shard-base':
+        shard.shardBase = value();
         break;
       case '--time-limit': {
         const v = value();
@@ -132,6 +150,13 @@ export function parseCheckOptions(argv: string[]): CheckOptions {
         if (a.startsWith('--')) throw new UsageError(`unknown option ${a}; see "strobe help check"`);
         o.paths.push(a);
     }
+  }
+  try {
+    const spec = resolveShard(shard, env);
+    if (spec !== undefined) o.shard = spec;
+  } catch (e) {
+    if (e instanceof ShardSpecError) throw new UsageError(e.message);
+    throw e;
   }
   return o;
 }
@@ -289,10 +314,10 @@ function writeFileEnsuringDir(file: string, text: string): void {
 }
 
 /** strobe check with verification: verify, write records, print, return the exit status. */
-export async function runVerifiedCheck(argv: string[], io: CliIO): Promise<number> {
+export async function runVerifiedCheck(argv: string[], io: CliIO, env: Record<string, string | undefined> = process.env): Promise<number> {
   let options: CheckOptions;
   try {
-    options = parseCheckOptions(argv);
+    options = parseCheckOptions(argv, env);
   } catch (e) {
     if (e instanceof UsageError) {
       io.stderr.write(`strobe check: ${e.message}\n`);
@@ -303,7 +328,7 @@ export async function runVerifiedCheck(argv: string[], io: CliIO): Promise<numbe
   const progress = options.json ? undefined : progressReporter(io);
   removeStaleTemporaries(join(options.out, 'models'));
   const report = await verifyCatalogue(options.paths.length > 0 ? options.paths : ['models'], {
-    cache: options.cache,
+    cache: options.cache ? new ResultCache(cacheRoot(options.cacheDir, env)) : false,
     ...(options.workers !== undefined ? { workers: options.workers } : {}),
     ...(options.shard ? { shard: options.shard } : {}),
     ...(options.timeLimitSeconds !== undefined ? { timeLimitSeconds: options.timeLimitSeconds } : {}),
@@ -317,6 +342,7 @@ export async function runVerifiedCheck(argv: string[], io: CliIO): Promise<numbe
   const whole = !options.shard && options.paths.length === 0;
   const finished = finishResults(options.out, report.summary, report.timings, whole ? { keep: new Set(report.records.map((r) => r.id)) } : {});
   for (const problem of finished.problems) io.stderr.write(`warning: left out of ${join(options.out, 'catalogue.json')}: ${problem}\n`);
+  const parts = writeSweepParts(options.out, report.sweepParts);
   for (const problem of report.cacheProblems) io.stderr.write(`warning: corrupt cache entry recomputed: ${problem}\n`);
   if (options.junit) writeFileEnsuringDir(options.junit, junitXml('strobe check', junitSuites(report, options.strict)));
   if (options.json) io.stdout.write(canonicalJson(report.summary));
@@ -325,19 +351,27 @@ export async function runVerifiedCheck(argv: string[], io: CliIO): Promise<numbe
     const details = problemDetails(report.records);
     if (details) io.stdout.write(`\n${details}`);
     io.stdout.write(`\nresults written to ${options.out}/\n`);
+    if (parts.length > 0) io.stdout.write(`${parts.length} sweep part(s) of this shard written to ${options.out}/sweep-parts/: the records get their sweeps back from strobe merge\n`);
   }
   return exitCodeFor(report.records.map((r) => r.status), options.strict);
 }
 
-export const describeMerge = `strobe merge <summary.json…> [--out FILE]
-  Joins the catalogue summaries written by sharded runs (results/catalogue.shard-i-of-n.json)
-  into one summary (default results/catalogue.json). Refuses summaries from different engine
-  versions and models that appear in two shards. Exit status 1 when a merged model is
-  disputed, invalid or failed (--strict: also unsettled).`;
+export const describeMerge = `strobe merge <summary.json | shard directory | sweep part …> [--out FILE] [--strict]
+  Joins the results of sharded runs.
+  Check shards: give their summaries (DIR/catalogue.shard-i-of-n.json) or their --out directories.
+  The merged summary goes to --out (default results/catalogue.json) and the complete records, each
+  with its sweeps rebuilt from the sweep parts of every shard, to the models/ folder beside it: the
+  result of one whole run. Refuses summaries from different engine versions and models that appear
+  in two shards.
+  Sweep shards (strobe sweep --shard): give the part files; the sweep goes to --out (default
+  <sweep name>.json), identical to what one whole run writes. Refuses parts of different sweeps,
+  models or engines, and reports missing points.
+  Exit status 1 when a merged model is disputed, invalid or failed (--strict: also unsettled), or
+  when the parts do not fit together; 2 on a usage error.`;
 
 export async function runMerge(argv: string[], io: CliIO): Promise<number> {
-  const files: string[] = [];
-  let out = join('results', 'catalogue.json');
+  const args: string[] = [];
+  let out: string | undefined;
   let strict = false;
   for (let i = 0; i < argv.length; i++) {
     if (argv[i] === '--out') {
@@ -351,35 +385,63 @@ export async function runMerge(argv: string[], io: CliIO): Promise<number> {
     else if (argv[i].startsWith('--')) {
       io.stderr.write(`strobe merge: unknown option ${argv[i]}; see "strobe help merge"\n`);
       return 2;
-    } else files.push(argv[i]);
+    } else args.push(argv[i]);
   }
-  if (files.length === 0) {
-    io.stderr.write(`strobe merge: give the shard summaries to merge\n${describeMerge}\n`);
+  if (args.length === 0) {
+    io.stderr.write(`strobe merge: give the shard summaries, shard directories or sweep parts to merge\n${describeMerge}\n`);
     return 2;
   }
   const parts: { source: string; summary: CatalogueSummary }[] = [];
-  for (const file of files) {
-    let summary: unknown;
-    try {
-      summary = JSON.parse(readFileSync(file, 'utf8'));
-    } catch (e) {
-      io.stderr.write(`${file}: cannot read a catalogue summary: ${(e as Error).message}\n`);
+  const sweepParts: { source: string; part: SweepPart }[] = [];
+  for (const arg of args) {
+    const files = existsSync(arg) && statSync(arg).isDirectory() ? readdirSync(arg).filter((f) => /^catalogue\.shard-\d+-of-\d+\.json$/.test(f)).sort().map((f) => join(arg, f)) : [arg];
+    if (files.length === 0) {
+      io.stderr.write(`${arg}: no shard summary (catalogue.shard-i-of-n.json) in this directory\n`);
       return 1;
     }
-    const problems = reportProblems(summary);
-    if (problems.length > 0 || (summary as { models?: unknown }).models === undefined) {
-      io.stderr.write(`${file}: not a catalogue summary (${problems[0] ?? 'no models list'})\n`);
-      return 1;
+    for (const file of files) {
+      let value: unknown;
+      try {
+        value = JSON.parse(readFileSync(file, 'utf8'));
+      } catch (e) {
+        io.stderr.write(`${file}: cannot read a catalogue summary or sweep part: ${(e as Error).message}\n`);
+        return 1;
+      }
+      if (isSweepPart(value)) {
+        sweepParts.push({ source: file, part: value });
+        continue;
+      }
+      const problems = reportProblems(value);
+      if (problems.length > 0 || (value as { models?: unknown }).models === undefined) {
+        io.stderr.write(`${file}: not a catalogue summary (${problems[0] ?? 'no models list'})\n`);
+        return 1;
+      }
+      parts.push({ source: file, summary: value as CatalogueSummary });
     }
-    parts.push({ source: file, summary: summary as CatalogueSummary });
+  }
+  if (parts.length > 0 && sweepParts.length > 0) {
+    io.stderr.write('strobe merge: give either check shards (summaries or directories) or the parts of one sweep, not both\n');
+    return 2;
   }
   try {
+    if (sweepParts.length > 0) {
+      const merged = mergeSweepParts(sweepParts);
+      const file = out ?? `${merged.name}.json`;
+      writeFileEnsuringDir(file, canonicalJson(merged));
+      io.stdout.write(`${merged.points.length} point(s) of sweep ${merged.name} from ${sweepParts.length} part(s) written to ${file}\n`);
+      return merged.points.some((p) => p.error) ? 1 : 0;
+    }
+    const file = out ?? join('results', 'catalogue.json');
     const merged = mergeSummaries(parts);
-    writeFileEnsuringDir(out, canonicalJson(merged));
-    io.stdout.write(`${count(merged.models.length, 'model')} from ${count(files.length, 'shard')} written to ${out}\n`);
+    const dirs = parts.map((p) => dirname(p.source));
+    const shardSweeps = readSweepParts(dirs);
+    const records = completeRecords(merged.models.map((m) => m.id), dirs, shardSweeps);
+    for (const record of records) writeRecordFile(dirname(file), record);
+    writeFileEnsuringDir(file, canonicalJson(merged));
+    io.stdout.write(`${count(merged.models.length, 'model')} from ${count(parts.length, 'shard')} written to ${file}${shardSweeps.length > 0 ? `, with the sweeps of ${count(shardSweeps.length, 'sweep part')}` : ''}\n`);
     return exitCodeFor(merged.models.map((m) => m.status), strict);
   } catch (e) {
-    if (e instanceof MergeError) {
+    if (e instanceof MergeError || e instanceof SweepMergeError) {
       io.stderr.write(`strobe merge: ${e.message}\n`);
       return 1;
     }
