@@ -9,7 +9,9 @@
  *    the step's bond graph (the common step drives) and otherwise a Chebyshev
  *    expansion with a stated error (banded-exponential.ts);
  *  - time-dependent segments: the CF4 Magnus slices of magnus.ts (two
- *    exponentials per slice, each banded as above) multiplied in band storage;
+ *    exponentials per slice, each banded as above) multiplied in band storage
+ *    (up to DENSE_SEGMENT_STATES states the dense integrator of propagator.ts
+ *    is faster, and its result is taken as it is);
  *    the slice counts are settled once per drive (magnusSlicePlan), normally on
  *    a narrow copy of the ribbon, since the CF4 error is measured with local
  *    norms (row sums) that do not grow with the width.
@@ -25,12 +27,15 @@ import type { LatticeDrive } from './drive.ts';
 import { segmentStartTimes } from './drive.ts';
 import { compileConstantDrive, driveBandwidth, prepareBloch } from './bloch.ts';
 import type { PropagatorOptions } from './propagator.ts';
-import { magnusSlicePlan } from './propagator.ts';
+import { magnusSegment, magnusSlicePlan } from './propagator.ts';
 import { CF4_NODES, CF4_WEIGHTS } from './magnus.ts';
 import { BandedMatrix, compactBandwidth, multiplyBanded } from '../linalg/banded-matrix.ts';
 import { bandedExpMinusIHt, DEFAULT_EXPONENTIAL_TOLERANCE } from '../linalg/banded-exponential.ts';
 import { ComponentFinder } from '../linalg/connected-components.ts';
 import { truncateDrive } from '../supercell.ts';
+
+/** Time-dependent segments of operators up to this size are integrated densely (propagator.ts). */
+export const DENSE_SEGMENT_STATES = 64;
 
 export interface BandedPropagatorOptions {
   propagator?: PropagatorOptions;
@@ -116,6 +121,9 @@ export function prepareBandedFloquet(drive: LatticeDrive, options: BandedPropaga
       } else if (constant[i]) {
         fill(i, starts[i], h);
         apply(bandedExpMinusIHt(h, seg.duration, blocks[i], tolerance));
+      } else if (n <= DENSE_SEGMENT_STATES) {
+        const dense = magnusSegment(bloch!, i, starts[i], starts[i] + seg.duration, slices[i]);
+        apply({ matrix: BandedMatrix.fromDense(dense, n - 1), error: 0, route: 'dense' });
       } else {
         // CF4 slices: exp(−iτ(α₁H₁ + α₂H₂)) · exp(−iτ(α₂H₁ + α₁H₂)) per slice (magnus.ts).
         const count = slices[i], tau = seg.duration / count;

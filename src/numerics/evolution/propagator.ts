@@ -132,7 +132,7 @@ export function spectralDistanceBound(a: ComplexMatrix, b: ComplexMatrix): numbe
 }
 
 /** U over [t0, t1] of a time-dependent segment with `slices` CF4 steps, node factors cached per drive. */
-function magnusSegment(bloch: PreparedBloch, index: number, t0: number, t1: number, slices: number): ComplexMatrix {
+export function magnusSegment(bloch: PreparedBloch, index: number, t0: number, t1: number, slices: number): ComplexMatrix {
   const sampler = bloch.tableSampler(index, `${t0}|${t1}|${slices}`, cf4NodeTimes(t0, t1, slices));
   return magnusCF4AtNodes(sampler, bloch.size, t0, t1, slices);
 }

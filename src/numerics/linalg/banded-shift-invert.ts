@@ -18,9 +18,13 @@
  * How many states lie in the window is known beforehand, exactly, from an
  * inertia count (unitary-window-count.ts). The block holds that many vectors
  * and GUARD more (the next states outward, whose distance sets the
- * convergence rate |d_in/d_out| per iteration). Once that many Ritz values lie
- * in the window with residuals below COARSE_TOLERANCE, each is polished by
- * inverse iteration with its own Ritz value as the shift
+ * convergence rate |d_in/d_out| per iteration). The iteration stops when that
+ * many Ritz values lie in the window with residuals below the tolerance (with
+ * a start block from a nearby momentum, after one or two iterations). When
+ * that is slow (states of the window close to the next ones outward), after
+ * POLISH_AFTER iterations the Ritz values with residuals below
+ * COARSE_TOLERANCE are polished one by one by inverse iteration with their own
+ * value as the shift
  * (banded-inverse-iteration.ts; close ones re-orthogonalised together and
  * re-diagonalised through V_g†AV_g), which converges in one or two solves. The
  * result stands when the polished states are as many as the count, all in the
@@ -44,6 +48,8 @@ export const GUARD = 3;
 export const DEFAULT_ARC_TOLERANCE = 1e-10;
 /** Ritz residual below which a state is handed to inverse iteration with its own shift. */
 const COARSE_TOLERANCE = 1e-4;
+/** Iterations of the plain block iteration before states are polished one by one. */
+const POLISH_AFTER = 4;
 const MAX_ITERATIONS = 200;
 
 export interface ArcOptions {
@@ -53,6 +59,8 @@ export interface ArcOptions {
   start?: ComplexMatrix;
   /** Seed of the random start vectors. */
   seed?: number;
+  /** Give up (crowded = true) when the window holds more states than this (default: no limit). */
+  maxCount?: number;
 }
 
 export interface ArcEigenpairs {
@@ -68,6 +76,8 @@ export interface ArcEigenpairs {
   iterations: number;
   /** Why the search did not converge, when it did not. */
   caveat?: string;
+  /** True when the window held more than maxCount states and was not searched. */
+  crowded?: boolean;
 }
 
 function fold(x: number): number {
@@ -143,6 +153,7 @@ function eigenpairsNear(u: BandedMatrix, setting: Setting, options: ArcOptions):
   });
   if (counted === null) return empty(false, 0, 'the inertia counts of the window disagree (an eigenvalue sits on every Cayley cut tried)');
   if (count === 0) return empty(true, 0);
+  if (options.maxCount !== undefined && count > options.maxCount) return { ...empty(false, 0, `the window holds ${count} states, more than the ${options.maxCount} expected near a gap label`), crowded: true };
   const p = Math.min(n, count + GUARD);
   const lu = new BandedLu(n, u.b).factorBanded(u, 1, 0, -setting.shiftRe, -setting.shiftIm, 2 ** -52);
   // Block, column j stored contiguously at j·n.
@@ -201,30 +212,47 @@ function eigenpairsNear(u: BandedMatrix, setting: Setting, options: ArcOptions):
       }
     }
     const eig = setting.ritz(m);
-    // Ritz residuals ‖AQy − λQy‖.
-    const inside: number[] = [];
+    // Ritz vectors z = Qy (and Az = AQy) of the values in the window, with residuals ‖Az − λz‖.
+    const ritz: { x: number; residual: number; zr: Float64Array; zi: Float64Array }[] = [];
     for (let k = 0; k < p; k++) {
       const x = eig.values[k];
       if (!setting.inside(x)) continue;
       const [cr, ci] = setting.value(x);
+      const zr = new Float64Array(n), zi = new Float64Array(n);
       let s = 0;
       for (let r = 0; r < n; r++) {
-        let zr = 0, zi = 0, wr = 0, wi = 0;
-        for (let a = 0; a < p; a++) {
-          const vr = eig.vectors.re[a * p + k], vi = eig.vectors.im[a * p + k];
-          const q1 = qr[a * n + r], q2 = qi[a * n + r], u1 = ur[a * n + r], u2 = ui[a * n + r];
-          zr += q1 * vr - q2 * vi;
-          zi += q1 * vi + q2 * vr;
+        let ar = 0, ai = 0, wr = 0, wi = 0;
+        for (let c = 0; c < p; c++) {
+          const vr = eig.vectors.re[c * p + k], vi = eig.vectors.im[c * p + k];
+          const q1 = qr[c * n + r], q2 = qi[c * n + r], u1 = ur[c * n + r], u2 = ui[c * n + r];
+          ar += q1 * vr - q2 * vi;
+          ai += q1 * vi + q2 * vr;
           wr += u1 * vr - u2 * vi;
           wi += u1 * vi + u2 * vr;
         }
-        const dr = wr - (zr * cr - zi * ci), di = wi - (zr * ci + zi * cr);
+        zr[r] = ar;
+        zi[r] = ai;
+        const dr = wr - (ar * cr - ai * ci), di = wi - (ar * ci + ai * cr);
         s += dr * dr + di * di;
       }
-      if (Math.sqrt(s) <= COARSE_TOLERANCE) inside.push(x);
+      ritz.push({ x, residual: Math.sqrt(s), zr, zi });
     }
-    if (inside.length >= count) {
-      const polished = polish(u, inside, setting);
+    const converged = ritz.filter((z) => z.residual <= tolerance);
+    if (converged.length === count) {
+      converged.sort((a, b) => setting.offset(a.x) - setting.offset(b.x));
+      const vectors = zeros(n, count);
+      converged.forEach((z, c) => {
+        for (let r = 0; r < n; r++) {
+          vectors.re[r * count + c] = z.zr[r];
+          vectors.im[r * count + c] = z.zi[r];
+        }
+      });
+      return { phases: Float64Array.from(converged, (z) => z.x), vectors, residuals: Float64Array.from(converged, (z) => z.residual), count, converged: true, iterations: iteration };
+    }
+    // Slow convergence (states of the window close to the next ones outward): polish each by inverse iteration.
+    const coarse = ritz.filter((z) => z.residual <= COARSE_TOLERANCE).map((z) => z.x);
+    if (iteration >= POLISH_AFTER && coarse.length >= count) {
+      const polished = polish(u, coarse, setting);
       if (polished.phases.length === count && polished.residuals.every((r) => r <= tolerance)) return { ...polished, count, converged: true, iterations: iteration };
     }
   }

@@ -27,14 +27,23 @@ import type { BandedMatrix } from './banded-matrix.ts';
 
 /** Number of negative eigenvalues of the Hermitian band matrix given by (re, im) rows of width 2b + 1, by unpivoted LDL† (overwrites re, im). */
 export function negativePivots(n: number, b: number, re: Float64Array, im: Float64Array, scale: number): number {
+  return ldlInertia(n, b, re, im, scale).negative;
+}
+
+/** Pivots below this (relative to the largest entry) make an inertia count suspect: B may be singular. */
+const SUSPECT_PIVOT = 1e-8;
+
+/** Negative pivots of the unpivoted LDL† and the smallest |pivot| relative to the scale. */
+function ldlInertia(n: number, b: number, re: Float64Array, im: Float64Array, scale: number): { negative: number; smallest: number } {
   const w = 2 * b + 1;
   const tiny = 1e-14 * scale;
-  let negative = 0;
+  let negative = 0, smallest = Infinity;
   // Only the upper band is used: row k holds (k, k + d) at k·w + b + d. Elimination
   // of column k updates rows k+1 … k+b within their upper bands.
   const dRe = new Float64Array(n);
   for (let k = 0; k < n; k++) {
     let d = re[k * w + b];
+    smallest = Math.min(smallest, Math.abs(d) / scale);
     if (Math.abs(d) < tiny) d = d < 0 ? -tiny : tiny;
     dRe[k] = d;
     if (d < 0) negative++;
@@ -53,7 +62,7 @@ export function negativePivots(n: number, b: number, re: Float64Array, im: Float
       }
     }
   }
-  return negative;
+  return { negative, smallest };
 }
 
 /** B(t) = i(W† − W) − t(2 + W + W†), W = e^{−iθ}U, as upper-band rows (re, im) of width 2b + 1. */
@@ -87,30 +96,35 @@ function congruentPencil(u: BandedMatrix, theta: number, t: number): { re: Float
   return { re, im, scale: Math.max(scale, 1e-300) };
 }
 
-/** The count with the Cayley cut at θ + π (θ − centre = offset): ν(B(tan(ψ₊/2))) − ν(B(tan(ψ₋/2))). */
-function countWithCut(u: BandedMatrix, centre: number, halfWidth: number, offset: number): number {
+/**
+ * The count with the Cayley cut at θ + π (θ − centre = offset): ν(B(tan(ψ₊/2))) − ν(B(tan(ψ₋/2))),
+ * and whether a pivot came near zero (then B may be singular and the count is suspect).
+ */
+function countWithCut(u: BandedMatrix, centre: number, halfWidth: number, offset: number): { count: number; suspect: boolean } {
   const theta = centre + offset;
   const upper = congruentPencil(u, theta, Math.tan((halfWidth - offset) / 2));
   const lower = congruentPencil(u, theta, Math.tan((-halfWidth - offset) / 2));
-  return negativePivots(u.n, u.b, upper.re, upper.im, upper.scale) - negativePivots(u.n, u.b, lower.re, lower.im, lower.scale);
+  const a = ldlInertia(u.n, u.b, upper.re, upper.im, upper.scale), b = ldlInertia(u.n, u.b, lower.re, lower.im, lower.scale);
+  return { count: a.negative - b.negative, suspect: Math.min(a.smallest, b.smallest) < SUSPECT_PIVOT };
 }
 
 /**
  * Number of eigenvalues e^{iφ} of the unitary band matrix `u` with
  * |φ − centre| < halfWidth (radians, on the circle; halfWidth < π).
- * An eigenvalue on the Cayley cut (φ = θ + π) makes B(t) singular for every t;
- * the count is therefore taken with two cuts (θ = centre and a cut moved by a
- * third of the room left between the arc and the opposite point) and accepted
- * when they agree, else with further cuts; null when no two agree.
+ * An eigenvalue on the Cayley cut (φ = θ + π) makes B(t) singular for every t,
+ * which shows as a pivot near zero: such a count is taken again with the cut
+ * moved (by a third of the room left between the arc and the opposite point)
+ * and accepted when two cuts agree; null when no two agree.
  */
 export function eigenvaluesOnArc(u: BandedMatrix, centre: number, halfWidth: number): number | null {
   if (!(halfWidth > 0 && halfWidth < Math.PI)) throw new RangeError(`eigenvaluesOnArc: half-width must lie in (0, π), got ${halfWidth}`);
   const room = Math.min(halfWidth, Math.PI - halfWidth) / 3;
   const counts: number[] = [];
   for (const offset of [0, room, -room / 2, room / 3]) {
-    const c = countWithCut(u, centre, halfWidth, offset);
-    if (c >= 0 && counts.includes(c)) return c;
-    counts.push(c);
+    const { count, suspect } = countWithCut(u, centre, halfWidth, offset);
+    // A clean factorisation stands on its own; a suspect one needs a second cut to agree.
+    if (count >= 0 && (!suspect || counts.includes(count))) return count;
+    counts.push(count);
   }
   return null;
 }

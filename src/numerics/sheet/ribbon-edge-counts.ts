@@ -5,18 +5,21 @@
  * Width. Edge states of a gap decay over ξ cells (the bulk estimate v/(πΔ) of
  * sheet-analysis.ts, or the decay fitted on the crossing states); a count is
  * only settled on a ribbon at least widthPerDecayLength (6) times ξ wide
- * (edge-modes.ts). The ribbon starts at max(start width, WIDTH_MARGIN·6·ξ_bulk)
- * and, while a count is unsettled because the fitted ξ asks for more, is
- * widened to WIDTH_MARGIN·6·ξ_fit, at most MAX_WIDENINGS times and never
- * beyond the width budget (default DEFAULT_RIBBON_STATES states). Every width
- * tried is reported, and a count still too narrow at the budget says so.
+ * (edge-modes.ts). The ribbon starts at the width asked for (default 24 cells)
+ * and, while a count is unsettled because ξ asks for more (the decay fitted on
+ * the crossing states, or the bulk estimate when nothing crosses), is widened
+ * to WIDTH_MARGIN·6·ξ, at most MAX_WIDENINGS times and never beyond the width
+ * budget (default DEFAULT_RIBBON_STATES states). The bulk estimate is not used
+ * to widen in advance: it is taken where the gap is smallest, and the states
+ * that cross the label often decay much faster. Every width tried is
+ * reported, and a count still too narrow at the budget says so.
  *
  * Route. Ribbons of at most `denseStates` states take the dense route (every
  * state at every momentum, ribbon.ts + edge-modes.ts); wider ones the banded
  * route (only the states near each gap label, banded-edge-counts.ts). Both
  * follow the same rules and give the same counts on the same ribbon (tested
  * on every test model). The spectrum kept for plots is that of the counted
- * ribbon on the dense route, else of a ribbon `denseStates` states wide.
+ * ribbon on the dense route, else of a ribbon PLOT_STATES states wide.
  */
 import type { LatticeDrive } from '../evolution/drive.ts';
 import type { PropagatorOptions } from '../evolution/propagator.ts';
@@ -38,8 +41,9 @@ export const DEFAULT_DENSE_STATES = 240;
 /** A widened ribbon is this much wider than widthPerDecayLength·ξ. */
 export const WIDTH_MARGIN = 1.25;
 export const MAX_WIDENINGS = 3;
-/** Momenta of the plotted spectrum of a ribbon counted on the banded route. */
+/** Momenta and size (states) of the plotted spectrum of a ribbon counted on the banded route. */
 export const PLOT_MOMENTA = 64;
+export const PLOT_STATES = 120;
 /** Largest accepted residual of the eigenpairs near a label (banded route). */
 const WINDOW_TOLERANCE = 1e-10;
 
@@ -100,19 +104,22 @@ export function ribbonEdgeCounts(drive: LatticeDrive, gaps: RibbonGap[], options
   const finite = gaps.map((g) => g.bulkDecayLength).filter((x) => Number.isFinite(x));
   const bulkXi = finite.length > 0 ? Math.max(...finite) : 0;
   const wanted = (xi: number) => Math.ceil(WIDTH_MARGIN * ratio * xi);
-  // The budget never shrinks a width the caller asked for.
-  let width = Math.max(start, Math.min(budget, wanted(bulkXi)));
+  // Start where the caller asked; widen when a count shows it is needed.
+  let width = start;
   const widths: number[] = [];
   let attempt: Attempt;
   for (let round = 0; ; round++) {
     widths.push(width);
     attempt = countAt(drive, gaps, width, options, denseStates);
-    const needed = Math.max(0, ...attempt.counts.filter((c) => !c.settled && Number.isFinite(c.decayLength) && width < ratio * c.decayLength).map((c) => wanted(c.decayLength)));
+    // An unsettled count asks for ξ = the larger of the fitted decay and its gap's bulk estimate (states that do
+    // not localise on a narrow ribbon, or hybridise across it, are the usual symptom of too narrow a ribbon).
+    const demand = (c: EdgeCountReport) => Math.max(Number.isFinite(c.decayLength) ? c.decayLength : 0, gaps.find((g) => g.arc.label === c.gap)?.bulkDecayLength ?? 0);
+    const needed = Math.max(0, ...attempt.counts.filter((c) => !c.settled && Number.isFinite(demand(c)) && width < ratio * demand(c)).map((c) => wanted(demand(c))));
     const next = Math.min(budget, needed);
     if (needed === 0 || next <= width || round >= MAX_WIDENINGS) {
       if (needed > width) {
         for (const c of attempt.counts) {
-          if (!c.settled && width < ratio * c.decayLength) {
+          if (!c.settled && width < ratio * demand(c)) {
             c.reason = `${c.reason ?? 'unsettled'}; the width budget (${budget} cells) allows no wider ribbon: raise numerics.ribbon.maxWidth`;
           }
         }
@@ -123,7 +130,7 @@ export function ribbonEdgeCounts(drive: LatticeDrive, gaps: RibbonGap[], options
   }
   const spectrum = attempt.spectrum ?? ribbonSpectrum(drive, {
     finiteDirection: f,
-    width: Math.min(attempt.width, Math.max(2, Math.floor(denseStates / orbitals))),
+    width: Math.min(attempt.width, Math.max(2, Math.floor(PLOT_STATES / orbitals))),
     momenta: PLOT_MOMENTA,
     propagator: options.propagator,
     decayLength: bulkXi,

@@ -35,7 +35,12 @@ export interface WindowStatesAt {
   truncation: number;
   /** Why not every state of the window was found, when that happened. */
   caveat?: string;
+  /** True when the window held more than MAX_WINDOW_STATES states (it reaches into a bulk band). */
+  crowded?: boolean;
 }
+
+/** More states than this in a window near a gap label means the window reaches into a bulk band. */
+export const MAX_WINDOW_STATES = 24;
 
 export interface WindowSource {
   /** The states with |ε − c| < h (units π/T) at momentum k (reduced, taken mod 1). */
@@ -43,23 +48,26 @@ export interface WindowSource {
 }
 
 export function floquetWindows(floquet: BandedFloquet, tolerance: number): WindowSource {
-  let lastK = NaN;
-  let last: BandedPropagation | null = null;
+  // The operators of the last two momenta: the sweep's and a refinement's, so gaps share both.
+  const recent: { k: number; u: BandedPropagation }[] = [];
   return {
     at(k, c, h, start) {
       const s = k - Math.floor(k);
-      if (last === null || s !== lastK) {
-        last = floquet.at([s]);
-        lastK = s;
+      let entry = recent.find((e) => e.k === s);
+      if (entry === undefined) {
+        entry = { k: s, u: floquet.at([s]) };
+        recent.unshift(entry);
+        recent.length = Math.min(recent.length, 2);
       }
-      const u = last;
-      const arc = eigenpairsOnArc(u.operator, -Math.PI * c, Math.PI * h, { tolerance, ...(start && start.cols > 0 ? { start } : {}) });
+      const u = entry.u;
+      const arc = eigenpairsOnArc(u.operator, -Math.PI * c, Math.PI * h, { tolerance, maxCount: MAX_WINDOW_STATES, ...(start && start.cols > 0 ? { start } : {}) });
       return {
         eps: Float64Array.from(arc.phases, (p) => wrapQuasienergy(-p / Math.PI)),
         error: Float64Array.from(arc.residuals, (r) => (r + u.truncation + u.accuracy) / Math.PI),
         vectors: arc.vectors,
         truncation: u.truncation,
         ...(arc.converged ? {} : { caveat: arc.caveat ?? 'the states near the label were not all found' }),
+        ...(arc.crowded ? { crowded: true } : {}),
       };
     },
   };
@@ -83,11 +91,13 @@ export function staticWindows(ribbon: LatticeDrive, segment: number, tolerance: 
       const lowest = ((centre - radius) * T) / Math.PI, highest = ((centre + radius) * T) / Math.PI;
       const parts: { eps: number; error: number; column: number; vectors: ComplexMatrix }[] = [];
       const caveats: string[] = [];
+      let crowded = false;
       for (let m = Math.floor((lowest - c - halfWidth) / 2); c + 2 * m - halfWidth < highest; m++) {
         const lo = c + 2 * m - halfWidth, hi = c + 2 * m + halfWidth;
         if (hi <= lowest) continue;
-        const found = eigenpairsInInterval(h, (Math.PI * lo) / T, (Math.PI * hi) / T, { tolerance, ...(start && start.cols > 0 ? { start } : {}) });
+        const found = eigenpairsInInterval(h, (Math.PI * lo) / T, (Math.PI * hi) / T, { tolerance, maxCount: MAX_WINDOW_STATES, ...(start && start.cols > 0 ? { start } : {}) });
         if (!found.converged) caveats.push(found.caveat ?? 'the states near the label were not all found');
+        crowded ||= found.crowded === true;
         for (let j = 0; j < found.phases.length; j++) {
           parts.push({ eps: wrapQuasienergy((found.phases[j] * T) / Math.PI), error: (found.residuals[j] * T) / Math.PI, column: j, vectors: found.vectors });
         }
@@ -106,6 +116,7 @@ export function staticWindows(ribbon: LatticeDrive, segment: number, tolerance: 
         vectors,
         truncation: 0,
         ...(caveats.length > 0 ? { caveat: caveats[0] } : {}),
+        ...(crowded ? { crowded: true } : {}),
       };
     },
   };
