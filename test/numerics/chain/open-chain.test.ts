@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { fromArrays } from '../../../src/numerics/linalg/complex-matrix.ts';
 import { nambuParticleHole } from '../../../src/numerics/evolution/bdg.ts';
 import { openChainSpectrum } from '../../../src/numerics/chain/open-chain.ts';
+import { analyseChain } from '../../../src/numerics/chain/chain-analysis.ts';
 import { chiralInvariants } from '../../../src/numerics/chain/chiral-winding.ts';
 import { majoranaInvariants } from '../../../src/numerics/chain/majorana-z2.ts';
 import { kickedKitaevChain, splitStepWalk, sshChain, twoStepChain, kitaevChain } from '../../support/drives/chains.ts';
@@ -58,5 +59,32 @@ describe('open chains', () => {
   it('refuses to count when the chain is too short for the decay length', () => {
     const r = openChainSpectrum(twoStepChain(1.45, 1.6), 8);
     expect(r.modes.some((m) => !m.settled && /shorter than 10 decay lengths/.test(m.reason ?? ''))).toBe(true);
+  });
+});
+
+describe('long open chains (states near 0 and π/T only, by shift-invert)', () => {
+  it('give the end-mode counts of the whole spectrum on every chiral test model', () => {
+    const models = [twoStepChain(0.3, 1.2), twoStepChain(2.0, 1.5), twoStepChain(1.5, 2.0), splitStepWalk(0.3 * Math.PI, 0.1 * Math.PI), splitStepWalk(0.2 * Math.PI, 0.9 * Math.PI)];
+    for (const d of models) {
+      const whole = openChainSpectrum(d, 40, { denseStates: Infinity });
+      const near = openChainSpectrum(d, 40, { denseStates: 0 });
+      expect(whole.coverage).toBe('all');
+      expect(near.coverage).toBe('near-gap-labels');
+      expect(near.modes.map((m) => [m.low, m.high, m.settled])).toEqual(whole.modes.map((m) => [m.low, m.high, m.settled]));
+      near.modes.forEach((m, i) => expect(m.lowWeight).toBeCloseTo(whole.modes[i].lowWeight, 8));
+    }
+  });
+
+  it('settle end modes that decay over a hundred cells on a chain of a thousand (two-step chain near θ₁ = θ₂)', () => {
+    // θ₂ − θ₁ = 0.01: the gap at 0 is 2|θ₁ − θ₂|/π ≈ 0.0064 π/T (derived in catalogue/verify/fixtures.test.ts); ν₀ = 1
+    // for θ₂ > θ₁ (Asbóth & Obuse, PRB 88, 121406(R) (2013)), so one zero mode per end, decaying slowly.
+    const d = twoStepChain(0.7, 0.71);
+    const r = analyseChain(d, { chiral: sigmaZ });
+    const zero = r.openChain!.modes[0];
+    expect(r.openChain!.cells).toBeGreaterThan(600);
+    expect(r.openChain!.coverage).toBe('near-gap-labels');
+    expect(r.openChain!.lengthSufficient).toBe(true);
+    expect([zero.low, zero.high, zero.settled]).toEqual([1, 1, true]);
+    expect(zero.lowDecayLength!).toBeGreaterThan(50);
   });
 });

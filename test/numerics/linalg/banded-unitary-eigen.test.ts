@@ -6,6 +6,10 @@ import { adjoint, distance, identity, multiply, multiplyAdjointLeft, zeros } fro
 import { randomUnitary, seededRandom } from '../../support/random.ts';
 import type { Random } from '../../support/random.ts';
 import { defects, expectBelow, expectWithin, math, toMathjs } from './comparisons.ts';
+import { BandedMatrix } from '../../../src/numerics/linalg/banded-matrix.ts';
+import { bandedUnitaryEigen, rotationFor } from '../../../src/numerics/linalg/banded-unitary-eigen.ts';
+import { eigenvaluesOnArc } from '../../../src/numerics/linalg/unitary-window-count.ts';
+import { eigenpairsOnArc } from '../../../src/numerics/linalg/banded-shift-invert.ts';
 
 /** One brickwork layer: independent 2×2 unitaries on the pairs (p, p+1), p = first, first+2, … */
 function layer(random: Random, n: number, first: number): ComplexMatrix {
@@ -87,4 +91,72 @@ describe('UnitaryEigen on banded unitaries (inverse-iteration route)', () => {
       expected.forEach((phi, k) => expectWithin(`phase ${k}`, Math.abs(foldPhase(e.phases[k] - phi)), 0, 1e-13 * n));
     });
   }
+});
+
+/** Eigenphases of `phases` on the arc |φ − centre| < h. */
+function onArc(phases: number[], centre: number, h: number): number[] {
+  return phases.filter((p) => Math.abs(foldPhase(p - centre)) < h).sort((a, b) => foldPhase(a - centre) - foldPhase(b - centre));
+}
+
+describe('bandedUnitaryEigen (band-tridiagonal route on (W + W†)/2)', () => {
+  const n = 96;
+  const base = Array.from({ length: n }, (_, k) => -3 + (6 * k) / n + 0.01 * Math.sin(k));
+  const cases: [string, number[]][] = [
+    ['distinct phases', base],
+    ['a spectrum symmetric about 0 (mirror pairs share cos φ when θ = 0)', base.map((p, k) => (k < n / 2 ? p : -base[k - n / 2]))],
+    ['splitting 1e-9 inside a 10-fold cluster', base.map((p, k) => (k < 10 ? 0.5 + k * 1e-9 : p))],
+    ['clusters at ±π', base.map((p, k) => (k < 4 ? Math.PI - k * 1e-12 : k < 8 ? -Math.PI + (k - 3) * 1e-12 : p))],
+  ];
+  for (const [name, phases] of cases) {
+    it(`keeps UV = VΛ and V†V = 1 to 1e-13·n and the exact eigenphases: ${name}`, () => {
+      const u = bandedWithPhases(43, phases);
+      for (const theta of [0, rotationFor(phases)]) {
+        const e = bandedUnitaryEigen(BandedMatrix.fromDense(u, 4), theta);
+        const { residual, orthogonality } = defects(u, { phases: e.phases, vectors: e.vectors, residual: e.residual } as UnitaryEigen);
+        expectBelow(`‖UV − VΛ‖_F (θ = ${theta.toFixed(3)})`, residual, 1e-13 * n);
+        expectBelow(`‖V†V − 1‖_F (θ = ${theta.toFixed(3)})`, orthogonality, 1e-13 * n);
+        const expected = phases.map(foldPhase).sort((x, y) => x - y);
+        expected.forEach((phi, k) => expectWithin(`phase ${k}`, Math.abs(foldPhase(e.phases[k] - phi)), 0, 1e-13 * n));
+      }
+    });
+  }
+
+  it('puts the rotation where no mirror pair of a symmetric spectrum meets', () => {
+    const phases = [0.3, -0.3, 1.1, -1.1, 2.0, -2.0, 2.9, -2.9];
+    const theta = rotationFor(phases);
+    const cosines = phases.map((p) => Math.cos(p - theta)).sort((a, b) => a - b);
+    for (let k = 1; k < cosines.length; k++) expect(cosines[k] - cosines[k - 1]).toBeGreaterThan(1e-3);
+  });
+});
+
+describe('eigenvalues on an arc: inertia count and shift-invert', () => {
+  const n = 96;
+  const phases = Array.from({ length: n }, (_, k) => -3 + (6 * k) / n + 0.01 * Math.sin(k));
+  // An isolated group near 1.2 rad inside a stretch left empty.
+  const spaced = phases.map((p) => (Math.abs(p - 1.2) < 0.3 ? 1.2 + 0.02 * (p - 1.2) : p));
+  const u = BandedMatrix.fromDense(bandedWithPhases(44, spaced), 4);
+
+  it('counts exactly the eigenphases on arcs of every width, also with an eigenvalue on the Cayley cut', () => {
+    for (const [centre, h] of [[1.2, 0.05], [1.2, 0.4], [-2, 0.5], [0.3, 1.4], [Math.PI, 0.2], [0, 2.9]]) {
+      expect(eigenvaluesOnArc(u, centre, h), `arc ${centre} ± ${h}`).toBe(onArc(spaced, centre, h).length);
+    }
+    // An eigenphase exactly opposite the centre (on the first cut): counted all the same.
+    const opposite = spaced.map((p, k) => (k === 3 ? foldPhase(1.2 + Math.PI) : p));
+    const v = BandedMatrix.fromDense(bandedWithPhases(45, opposite), 4);
+    expect(eigenvaluesOnArc(v, 1.2, 0.3)).toBe(onArc(opposite, 1.2, 0.3).length);
+  });
+
+  it('finds every eigenpair on the arc, with residuals below 1e-10 and the exact phases, from a cold or a warm start', () => {
+    const expected = onArc(spaced, 1.2, 0.1);
+    expect(expected.length).toBeGreaterThan(3);
+    const cold = eigenpairsOnArc(u, 1.2, 0.1);
+    expect(cold.converged).toBe(true);
+    expect(cold.count).toBe(expected.length);
+    expected.forEach((phi, k) => expectWithin(`phase ${k}`, foldPhase(cold.phases[k] - phi), 0, 1e-11));
+    for (const r of cold.residuals) expectBelow('residual', r, 1e-10);
+    const warm = eigenpairsOnArc(u, 1.2, 0.1, { start: cold.vectors });
+    expect(warm.iterations).toBeLessThanOrEqual(cold.iterations);
+    expect(Array.from(warm.phases)).toEqual(Array.from(warm.phases).sort((a, b) => foldPhase(a - 1.2) - foldPhase(b - 1.2)));
+    expect(eigenpairsOnArc(u, 1.2, 0.1, { maxCount: 2 })).toMatchObject({ crowded: true, converged: false });
+  });
 });
