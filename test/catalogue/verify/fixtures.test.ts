@@ -2,6 +2,10 @@
  * Purpose-built model files (test/fixtures/verification) run through the real
  * engines. Expected values come from published results and derivations in this
  * file, not from our own output:
+ *  - Qi–Wu–Zhang near its transition (m = 1.97): the edge state of a ribbon finite along a₁ at
+ *    k_y = π is ψ_j ∝ (−(m + cos k_y))^j (derived in numerics/sheet/ribbon.test.ts), decay length
+ *    ξ = −1/ln 0.97 ≈ 32.8 cells, so settling its counts needs a ribbon of about 200 cells or more;
+ *    counts from the table of docs/conventions.md with C = +1 (low −1, high +1 in the gap at 0).
  *  - Qi–Wu–Zhang model (Qi, Wu, Zhang, PRB 74, 085308 (2006)), from memory:
  *    |C| = 1 for 0 < |m| < 2 and 0 for |m| > 2; with a₁ = x̂, a₂ = ŷ the lower band at
  *    m = 1 has C = +1 in our convention (docs/conventions.md). Its gap at 0 is
@@ -87,6 +91,24 @@ describe('verification of purpose-built models', () => {
     // |m| > 2: both bands trivial (Qi, Wu, Zhang, PRB 74, 085308 (2006)), as claimed.
     expect(r.claims.map((c) => c.outcome)).toEqual(['confirmed', 'confirmed']);
     expect(r.status).toBe('verified');
+  });
+
+  it('settles edge counts of states that decay over tens of cells at default ribbon settings: confirmed, and contradicted when the signs are flipped', () => {
+    const xi = -1 / Math.log(0.97);
+    const r = record('qwz-slow-decay');
+    expect(r.status).toBe('verified');
+    const low = verdict('qwz-slow-decay', 'gap-0/edge-0-low');
+    expect(low).toMatchObject({ outcome: 'confirmed', computed: -1 });
+    expect(verdict('qwz-slow-decay', 'gap-0/edge-0-high')).toMatchObject({ outcome: 'confirmed', computed: 1 });
+    // The certificate shows both widths, each at least six decay lengths, with the same count.
+    const widths = low.certificate.refinement.map((step) => step.grid[0]);
+    expect(widths).toHaveLength(2);
+    for (const w of widths) expect(w).toBeGreaterThanOrEqual(6 * xi);
+    expect(low.certificate.notes.join(' ')).toMatch(/widths tried 24, \d+ cells/);
+    expect(low.certificate.notes.join(' ')).toMatch(/decay length ≈ 3[23]\.\d cells/);
+    const flipped = verdict('qwz-slow-decay-sign-error', 'gap-0/edge-0-low');
+    expect(flipped).toMatchObject({ outcome: 'contradicted', claimed: 1, computed: -1 });
+    expect(flipped.hint).toMatch(/^sign differs/);
   });
 
   it('confirms the two-step chain and flags it anomalous (modes at π/T)', () => {
