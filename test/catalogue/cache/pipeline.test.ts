@@ -51,8 +51,10 @@ describe('verification cache', () => {
     const { models, cacheDir } = setup();
     const cold = await verifyCatalogue([models], { workers: 0, cache: new ResultCache(cacheDir) });
     const bucketRoot = join(cacheDir, 'results');
-    const bucket = readdirSync(bucketRoot)[0];
-    const entry = join(bucketRoot, bucket, readdirSync(join(bucketRoot, bucket))[0]);
+    // A model's entry (the cache also holds single sweep points, which carry no record).
+    const entries = readdirSync(bucketRoot).flatMap((bucket) => readdirSync(join(bucketRoot, bucket)).map((name) => join(bucketRoot, bucket, name)));
+    const entry = entries.find((file) => readFileSync(file, 'utf8').includes('\\"record\\"'))!;
+    expect(entry).toBeDefined();
     // Edit the stored payload the way a stray write would: still valid JSON, different bytes.
     const original = readFileSync(entry, 'utf8');
     const edited = original.replace('"payloadText":"{', '"payloadText":"{ ');
