@@ -46,19 +46,20 @@ export function bandToTridiagonal(a: BandedMatrix): { d: Float64Array; e: Float6
   /** A ← G A G† with G = [[c, s], [−s̄, c]] acting on the plane (p, p + 1). */
   const rotate = (p: number, c: number, sr: number, si: number) => {
     const q = p + 1;
-    const lo = Math.max(0, p - B), hi = Math.min(n - 1, q + B);
-    // Rows p, q (left multiplication), every column inside the band of both rows.
-    for (let col = Math.max(lo, q - B); col <= Math.min(hi, p + B); col++) {
-      const x = at(p, col), y = at(q, col);
+    const first = Math.max(0, q - B), last = Math.min(n - 1, p + B);
+    // Rows p, q (left multiplication): entry (row, col) sits at row·W + col − row + B.
+    let x = p * W - p + B + first, y = q * W - q + B + first;
+    for (let col = first; col <= last; col++, x++, y++) {
       const xr = re[x], xi = im[x], yr = re[y], yi = im[y];
       re[x] = c * xr + (sr * yr - si * yi);
       im[x] = c * xi + (sr * yi + si * yr);
       re[y] = c * yr - (sr * xr + si * xi);
       im[y] = c * yi - (sr * xi - si * xr);
     }
-    // Columns p, q (right multiplication by G†), every row inside the band of both columns.
-    for (let row = Math.max(lo, q - B); row <= Math.min(hi, p + B); row++) {
-      const x = at(row, p), y = at(row, q);
+    // Columns p, q (right multiplication by G†): entry (row, p) at row·W + p − row + B, stride W − 1.
+    x = first * W + p - first + B;
+    y = x + 1;
+    for (let row = first; row <= last; row++, x += W - 1, y += W - 1) {
       const xr = re[x], xi = im[x], yr = re[y], yi = im[y];
       // new_p = c x + s̄ y, new_q = −s x + c y
       re[x] = c * xr + (sr * yr + si * yi);
@@ -72,7 +73,7 @@ export function bandToTridiagonal(a: BandedMatrix): { d: Float64Array; e: Float6
     const px = at(q - 1, col), py = at(q, col);
     const xr = re[px], xi = im[px], yr = re[py], yi = im[py];
     if (yr === 0 && yi === 0) return;
-    const ax = Math.hypot(xr, xi), r = Math.hypot(ax, Math.hypot(yr, yi));
+    const ax = Math.sqrt(xr * xr + xi * xi), r = Math.sqrt(ax * ax + yr * yr + yi * yi);
     let c: number, sr: number, si: number;
     if (ax === 0) {
       // x = 0: c = 0, s = 1 swaps the pair, new (x, y) = (y, 0).

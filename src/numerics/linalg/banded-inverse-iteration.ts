@@ -11,7 +11,9 @@
  * r the residuals when A is normal; the caller certifies that bound and the
  * residuals and falls back to a dense route when they are not met.
  * Cost: one factorisation and a few solves per vector, O(n² b²) for all n,
- * against O(n³) for the back-transform of a dense eigensolver.
+ * against O(n³) for the back-transform of a dense eigensolver. From a random
+ * start two solves are taken (the second purifies the first against close
+ * eigenvectors).
  *
  * Two users: a unitary U with eigenphases φ (shifts e^{iφ} on the circle,
  * unitary-eigen.ts) and a Hermitian band matrix with real eigenvalues

@@ -69,9 +69,27 @@ export class BandedLu {
   factorBanded(a: BandedMatrix, zr: number, zi: number, shiftRe: number, shiftIm: number, pivotFloor = 0): this {
     const { n, b, width: w, re, im } = this;
     if (a.n !== n || a.b > b) throw new RangeError(`BandedLu: a ${a.n}×${a.n} matrix of bandwidth ${a.b} does not fit a factorisation of size ${n}, bandwidth ${b}`);
+    const ab = a.b, aw = a.width;
+    if (zr === 1 && zi === 0 && ab === b) {
+      // Same band: each row of A is the first 2b + 1 positions of the factor's row (columns i − b … i + b).
+      const ar = a.re, ai = a.im;
+      for (let i = 0; i < n; i++) {
+        const src = i * aw, dst = i * w;
+        for (let d = 0; d < aw; d++) {
+          re[dst + d] = ar[src + d];
+          im[dst + d] = ai[src + d];
+        }
+        for (let d = aw; d < w; d++) {
+          re[dst + d] = 0;
+          im[dst + d] = 0;
+        }
+        re[dst + b] += shiftRe;
+        im[dst + b] += shiftIm;
+      }
+      return this.eliminate(pivotFloor);
+    }
     re.fill(0);
     im.fill(0);
-    const ab = a.b, aw = a.width;
     for (let i = 0; i < n; i++) {
       const lo = Math.max(0, i - ab), hi = Math.min(n - 1, i + ab);
       const src = i * aw - i + ab, dst = i * w - i + b;

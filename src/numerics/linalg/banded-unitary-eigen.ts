@@ -32,6 +32,7 @@ import { bandHermitianEigenvalues } from './band-tridiagonal.ts';
 import { bandedInverseIteration, CLUSTER_SEPARATION } from './banded-inverse-iteration.ts';
 import { BANDED_MAX_FRACTION, finish, foldPhase, orthogonalityBound, RESIDUAL_TARGET, UnitaryEigen } from './unitary-eigen.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
+import { narrowingOrder, permuteBanded } from './band-reordering.ts';
 
 /** The golden angle: no eigenphase commonly sits there. */
 const DEFAULT_ROTATION = Math.PI * (3 - Math.sqrt(5));
@@ -86,6 +87,7 @@ export function rotationFor(phases: ArrayLike<number>): number {
       fewest = grouped;
       best = theta;
     }
+    if (fewest === 0) break;
   }
   return best;
 }
@@ -133,8 +135,26 @@ function hermitianPart(u: BandedMatrix, theta: number): BandedMatrix {
   return a;
 }
 
-/** Eigen-decomposition of the banded unitary `u`; `rotation` is θ (see rotationFor). */
+/**
+ * Eigen-decomposition of the banded unitary `u`; `rotation` is θ (see
+ * rotationFor). The states are first reordered to narrow the band when that
+ * helps (band-reordering.ts); the eigenvectors are returned in the original order.
+ */
 export function bandedUnitaryEigen(u: BandedMatrix, rotation: number = DEFAULT_ROTATION): BandedEigenResult {
+  const order = narrowingOrder(u);
+  if (order === null) return eigenInOrder(u, rotation);
+  const result = eigenInOrder(permuteBanded(u, order), rotation);
+  // Row k of the permuted eigenvectors is state order[k].
+  const n = u.n, v = result.vectors;
+  const re = new Float64Array(n * n), im = new Float64Array(n * n);
+  for (let k = 0; k < n; k++) {
+    re.set(v.re.subarray(k * n, k * n + n), order[k] * n);
+    im.set(v.im.subarray(k * n, k * n + n), order[k] * n);
+  }
+  return { ...result, vectors: { rows: n, cols: n, re, im } };
+}
+
+function eigenInOrder(u: BandedMatrix, rotation: number): BandedEigenResult {
   const n = u.n;
   const dense = (): BandedEigenResult => {
     const e = new UnitaryEigen(u.toDense());
@@ -155,8 +175,8 @@ export function bandedUnitaryEigen(u: BandedMatrix, rotation: number = DEFAULT_R
   const uv = multiplyBandedDense(u, v);
   for (const g of groups) if (g.length > 1) rediagonaliseGroup(v, uv, g);
   const done = finish(v, uv);
-  if (!(done.residual <= RESIDUAL_TARGET * n)) return dense();
-  if (!(orthogonalityBound(done.vectors, done.uv, done.phases) <= RESIDUAL_TARGET * n)) return dense();
+  const certified = done.residual <= RESIDUAL_TARGET * n && orthogonalityBound(done.vectors, done.uv, done.phases) <= RESIDUAL_TARGET * n;
+  if (!certified) return dense();
   return { phases: done.phases, vectors: done.vectors, residual: done.residual, route: 'band' };
 }
 

@@ -122,8 +122,8 @@ export class UnitaryEigen {
 /** Cluster refinement, Rayleigh phases, ascending order and residual of an eigenbasis V with UV. */
 export function finish(v: ComplexMatrix, uv: ComplexMatrix): { phases: Float64Array; vectors: ComplexMatrix; uv: ComplexMatrix; residual: number } {
   const n = v.rows;
-  refineClusters(v, uv);
-  const phases = rayleighPhases(v, uv);
+  // The Rayleigh phases change only where a cluster was re-diagonalised.
+  const phases = refineClusters(v, uv) ?? rayleighPhases(v, uv);
   // Sort ascending, permuting columns.
   const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => phases[a] - phases[b]);
   const sorted = new Float64Array(n);
@@ -216,7 +216,9 @@ export function orthogonalityBound(v: ComplexMatrix, uv: ComplexMatrix, phases: 
       ti[j * n + r] = v.im[r * m + j];
     }
   }
-  const chord = (a: number, c: number) => 2 * Math.abs(Math.sin(0.5 * (phases[a] - phases[c])));
+  // |e^{iφ_a} − e^{iφ_c}| from the unit vectors (no sine per pair).
+  const cos = Float64Array.from(phases, Math.cos), sin = Float64Array.from(phases, Math.sin);
+  const chord = (a: number, c: number) => Math.sqrt((cos[a] - cos[c]) ** 2 + (sin[a] - sin[c]) ** 2);
   let total = 0;
   for (let i = 0; i < m; i++) {
     total += (norm2[i] - 1) ** 2;
@@ -454,16 +456,21 @@ function rayleighPhases(v: ComplexMatrix, uv: ComplexMatrix): Float64Array {
  * circle) from C = V_c†UV_c: with φ̄ the cluster's phase, K = (e^{−iφ̄}C − h.c.)/2i
  * has eigenvalues sin(φ − φ̄), monotonic inside the cluster. Updates V and UV in place.
  */
-function refineClusters(v: ComplexMatrix, uv: ComplexMatrix): void {
+/** Re-diagonalises clusters (see above); returns the Rayleigh phases when no cluster needed it (else null: they changed). */
+function refineClusters(v: ComplexMatrix, uv: ComplexMatrix): Float64Array | null {
   const n = v.rows;
-  if (n < 2) return;
+  if (n < 2) return null;
   const phases = rayleighPhases(v, uv);
+  let changed = false;
   const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => phases[a] - phases[b]);
   // Start the scan after the largest gap so no cluster wraps around the array end.
   const start = (largestGap(order.map((j) => phases[j])).below + 1) % n;
   let cluster: number[] = [order[start]];
   const flush = () => {
-    if (cluster.length > 1) rediagonalise(v, uv, cluster, phases[cluster[0]]);
+    if (cluster.length > 1) {
+      rediagonalise(v, uv, cluster, phases[cluster[0]]);
+      changed = true;
+    }
   };
   for (let step = 1; step < n; step++) {
     const prev = order[(start + step - 1) % n], cur = order[(start + step) % n];
@@ -474,6 +481,7 @@ function refineClusters(v: ComplexMatrix, uv: ComplexMatrix): void {
     }
   }
   flush();
+  return changed ? null : phases;
 }
 
 function rediagonalise(v: ComplexMatrix, uv: ComplexMatrix, cols: number[], phase: number): void {

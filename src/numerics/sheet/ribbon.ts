@@ -185,12 +185,17 @@ export function ribbonSpectrum(drive: LatticeDrive, options: RibbonOptions = {})
     truncation = Math.max(truncation, u.truncation);
     const { values, order } = quasienergiesFromEigenphases(eig.phases);
     const n = eig.vectors.rows;
-    const vectors = zeros(n, n);
+    // Columns into quasienergy order, row by row in place (one scratch row instead of a second matrix).
+    const vectors = eig.vectors;
+    const rowRe = new Float64Array(n), rowIm = new Float64Array(n);
     for (let r = 0; r < n; r++) {
+      const o = r * n;
       for (let c = 0; c < n; c++) {
-        vectors.re[r * n + c] = eig.vectors.re[r * n + order[c]];
-        vectors.im[r * n + c] = eig.vectors.im[r * n + order[c]];
+        rowRe[c] = vectors.re[o + order[c]];
+        rowIm[c] = vectors.im[o + order[c]];
       }
+      vectors.re.set(rowRe, o);
+      vectors.im.set(rowIm, o);
     }
     // The banded operator is within `truncation` of U: residuals against U grow by at most that.
     return { momentum: [s], quasienergies: values, vectors, eigenResidual: eig.residual + Math.sqrt(n) * u.truncation, propagatorAccuracy: u.accuracy / Math.PI };
