@@ -12,36 +12,18 @@ edge weights over 15 cells on each side.
 """
 import numpy as np
 
+from _honeycomb import BONDS
+from _honeycomb import step_operator as honeycomb_step
 from _measure import measure
 
 J, DELTA, TAU = 0.45 * np.pi, 0.3, 1.0
 WIDTH, MOMENTA, EDGE = 60, 400, 15
-BONDS = [(0, 0), (0, -1), (1, -1)]  # cells of the B neighbour of A in cell 0 (along a1, a2)
 SIZE = 2 * WIDTH
 
 
 def step_operator(s, n1, n2):
-    """exp(-i H tau) for the step with bond (n1, n2): dimers A(c)-B(c+n1) with hopping J e^{-2 pi i s n2}."""
-    m = len(s)
-    out = np.zeros((m, SIZE, SIZE), complex)
-    paired = np.zeros(SIZE, bool)
-    r = np.hypot(J, DELTA)
-    c, sn = np.cos(r * TAU), np.sin(r * TAU) / r
-    phase = np.exp(-2j * np.pi * s * n2)
-    for cell in range(WIDTH):
-        target = cell + n1
-        if not 0 <= target < WIDTH:
-            continue
-        a, b = 2 * cell, 2 * target + 1
-        paired[a] = paired[b] = True
-        # H = [[delta, J conj(p)], [J p, -delta]] on (A, B): exp(-iH tau) = c - i sn H.
-        out[:, a, a] = c - 1j * sn * DELTA
-        out[:, b, b] = c + 1j * sn * DELTA
-        out[:, b, a] = -1j * sn * J * phase
-        out[:, a, b] = -1j * sn * J * np.conj(phase)
-    for i in np.flatnonzero(~paired):
-        out[:, i, i] = np.exp(-1j * TAU * (DELTA if i % 2 == 0 else -DELTA))
-    return out
+    """exp(-i H tau) for the step with bond (n1, n2), finite along a1 (bench/numpy/_honeycomb.py)."""
+    return honeycomb_step(s, n1, n2, WIDTH, J, DELTA, TAU)
 
 
 def unitary_eigh(u):

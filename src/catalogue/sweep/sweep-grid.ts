@@ -90,7 +90,6 @@ export function runSweepGrid(
   onPoint?: (done: number, total: number) => void,
   pointCache?: PointCache,
 ): SweepRecord {
-  if (spec.axes.length < 1 || spec.axes.length > 2) throw new RangeError(`sweep ${spec.name}: give one or two axes, got ${spec.axes.length}`);
   const total = sweepSize(spec);
   const points = runSweepPoints(loaded, claims, engines, policy, spec, symmetricTimes, Array.from({ length: total }, (_, i) => i), onPoint, pointCache);
   return assembleSweep(spec, points);

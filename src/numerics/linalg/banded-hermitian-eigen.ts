@@ -15,7 +15,7 @@
 import type { ComplexMatrix } from './complex-matrix.ts';
 import type { BandedMatrix } from './banded-matrix.ts';
 import { bandHermitianEigenvalues } from './band-tridiagonal.ts';
-import { bandedInverseIteration, CLUSTER_SEPARATION } from './banded-inverse-iteration.ts';
+import { bandedInverseIteration, closeGroups } from './banded-inverse-iteration.ts';
 import { multiplyBandedDense, rediagonaliseGroup } from './banded-unitary-eigen.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
 import { BANDED_MAX_FRACTION, RESIDUAL_TARGET } from './unitary-eigen.ts';
@@ -41,11 +41,7 @@ export function bandedHermitianEigen(h: BandedMatrix): BandedHermitianResult {
   if (n <= 2 || h.b * BANDED_MAX_FRACTION > n) return dense();
   const scale = Math.max(1, h.normBound());
   const values = bandHermitianEigenvalues(h);
-  const groups: number[][] = [];
-  for (let j = 0; j < n; j++) {
-    if (j > 0 && values[j] - values[j - 1] < CLUSTER_SEPARATION) groups[groups.length - 1].push(j);
-    else groups.push([j]);
-  }
+  const groups = closeGroups(values);
   if (groups.reduce((m, g) => Math.max(m, g.length), 0) * 2 > n) return dense();
   const v = bandedInverseIteration({ banded: h }, values, new Float64Array(n), Array.from({ length: n }, (_, j) => j));
   const hv = multiplyBandedDense(h, v);

@@ -22,15 +22,15 @@
 import type { ComplexMatrix } from './complex-matrix.ts';
 import { zeros } from './complex-matrix.ts';
 import { BandedLu } from './banded-lu.ts';
-import type { BandedMatrix } from './banded-matrix.ts';
+import { BandedMatrix } from './banded-matrix.ts';
 
 /** Shifts closer than this are re-orthogonalised together. */
 export const CLUSTER_SEPARATION = 1e-3;
 /** Solves per eigenvector at most (LAPACK's stein uses five). */
 const MAX_SOLVES = 5;
 
-/** The matrix whose eigenvectors are wanted: dense storage read inside its band b, or band storage. */
-export type BandSource = { dense: ComplexMatrix; b: number } | { banded: BandedMatrix };
+/** The matrix whose eigenvectors are wanted, in band storage. */
+export type BandSource = { banded: BandedMatrix };
 
 /**
  * Unit eigenvectors (columns, in the order of `shiftsRe`/`shiftsIm`) of the
@@ -40,8 +40,8 @@ export type BandSource = { dense: ComplexMatrix; b: number } | { banded: BandedM
  * close shifts are adjacent).
  */
 export function bandedInverseIteration(source: BandSource, shiftsRe: Float64Array, shiftsIm: Float64Array, order: ArrayLike<number>): ComplexMatrix {
-  const n = 'dense' in source ? source.dense.rows : source.banded.n;
-  const b = 'dense' in source ? source.b : source.banded.b;
+  const n = source.banded.n;
+  const b = source.banded.b;
   const m = shiftsRe.length;
   const eps = 2 ** -52;
   // A normalised iterate whose preimage grew beyond this has residual below 1/growth.
@@ -62,8 +62,7 @@ export function bandedInverseIteration(source: BandSource, shiftsRe: Float64Arra
       const prev = order[step - 1];
       if (Math.hypot(shiftsRe[j] - shiftsRe[prev], shiftsIm[j] - shiftsIm[prev]) >= CLUSTER_SEPARATION) group.length = 0;
     }
-    if ('dense' in source) lu.factor(source.dense, 1, 0, -shiftsRe[j], -shiftsIm[j], eps);
-    else lu.factorBanded(source.banded, 1, 0, -shiftsRe[j], -shiftsIm[j], eps);
+    lu.factorBanded(source.banded, 1, 0, -shiftsRe[j], -shiftsIm[j], eps);
     for (let r = 0; r < n; r++) { xr[r] = random(); xi[r] = random(); }
     normalise(xr, xi);
     let extra = 1;
@@ -101,7 +100,7 @@ export function unitaryInverseIteration(u: ComplexMatrix, b: number, phases: Flo
     if (hi - phases[order[k]] > widest) { widest = hi - phases[order[k]]; start = (k + 1) % n; }
   }
   const visit = Array.from({ length: n }, (_, k) => order[(start + k) % n]);
-  return bandedInverseIteration({ dense: u, b }, Float64Array.from(phases, Math.cos), Float64Array.from(phases, Math.sin), visit);
+  return bandedInverseIteration({ banded: BandedMatrix.fromDense(u, b) }, Float64Array.from(phases, Math.cos), Float64Array.from(phases, Math.sin), visit);
 }
 
 /** Scales (xr, xi) to unit norm; returns the norm before scaling. */
@@ -127,4 +126,14 @@ function project(qr: Float64Array, qi: Float64Array, o: number, xr: Float64Array
     xr[r] -= ar * sr - ai * si;
     xi[r] -= ar * si + ai * sr;
   }
+}
+
+/** Indices 0 … n−1 of ascending values, grouped where neighbours lie closer than CLUSTER_SEPARATION (chained). */
+export function closeGroups(values: ArrayLike<number>): number[][] {
+  const groups: number[][] = [];
+  for (let j = 0; j < values.length; j++) {
+    if (j > 0 && values[j] - values[j - 1] < CLUSTER_SEPARATION) groups[groups.length - 1].push(j);
+    else groups.push([j]);
+  }
+  return groups;
 }

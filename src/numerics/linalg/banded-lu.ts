@@ -12,7 +12,7 @@
  * with 0 a zero pivot marks the matrix singular.
  */
 import type { ComplexMatrix } from './complex-matrix.ts';
-import type { BandedMatrix } from './banded-matrix.ts';
+import { BandedMatrix } from './banded-matrix.ts';
 
 /** Largest |i − j| over the nonzero entries of a square matrix (0 for a diagonal matrix). */
 export function bandwidth(a: ComplexMatrix): number {
@@ -46,26 +46,12 @@ export class BandedLu {
     this.pivot = new Int32Array(n);
   }
 
-  /** Factorises zA + shift·1 restricted to the band b of A (zr + i·zi a complex scale, shift complex). */
+  /** Factorises zA + shift·1 restricted to the band b of the dense A (zr + i·zi a complex scale, shift complex). */
   factor(a: ComplexMatrix, zr: number, zi: number, shiftRe: number, shiftIm: number, pivotFloor = 0): this {
-    const { n, b, width: w, re, im } = this;
-    re.fill(0);
-    im.fill(0);
-    for (let i = 0; i < n; i++) {
-      const lo = Math.max(0, i - b), hi = Math.min(n - 1, i + b);
-      const src = i * n, dst = i * w - i + b;
-      for (let j = lo; j <= hi; j++) {
-        const xr = a.re[src + j], xi = a.im[src + j];
-        re[dst + j] = zr * xr - zi * xi;
-        im[dst + j] = zr * xi + zi * xr;
-      }
-      re[dst + i] += shiftRe;
-      im[dst + i] += shiftIm;
-    }
-    return this.eliminate(pivotFloor);
+    return this.factorBanded(BandedMatrix.fromDense(a, this.b), zr, zi, shiftRe, shiftIm, pivotFloor);
   }
 
-  /** As factor, for a matrix held in band storage (its bandwidth must not exceed b). */
+  /** Factorises zA + shift·1 for A held in band storage (its bandwidth must not exceed b). */
   factorBanded(a: BandedMatrix, zr: number, zi: number, shiftRe: number, shiftIm: number, pivotFloor = 0): this {
     const { n, b, width: w, re, im } = this;
     if (a.n !== n || a.b > b) throw new RangeError(`BandedLu: a ${a.n}×${a.n} matrix of bandwidth ${a.b} does not fit a factorisation of size ${n}, bandwidth ${b}`);

@@ -26,10 +26,10 @@
  * same; otherwise the dense route of UnitaryEigen is taken.
  */
 import type { ComplexMatrix } from './complex-matrix.ts';
-import { zeros } from './complex-matrix.ts';
+import { projectColumns, rotateColumnsInPlace, zeros } from './complex-matrix.ts';
 import { BandedMatrix } from './banded-matrix.ts';
 import { bandHermitianEigenvalues } from './band-tridiagonal.ts';
-import { bandedInverseIteration, CLUSTER_SEPARATION } from './banded-inverse-iteration.ts';
+import { bandedInverseIteration, CLUSTER_SEPARATION, closeGroups } from './banded-inverse-iteration.ts';
 import { BANDED_MAX_FRACTION, finish, foldPhase, orthogonalityBound, RESIDUAL_TARGET, UnitaryEigen } from './unitary-eigen.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
 import { narrowingOrder, permuteBanded } from './band-reordering.ts';
@@ -164,11 +164,7 @@ function eigenInOrder(u: BandedMatrix, rotation: number): BandedEigenResult {
   const a = hermitianPart(u, rotation);
   const values = bandHermitianEigenvalues(a);
   // Groups of close cosines; large groups (flat bands) are cheaper on the dense route.
-  const groups: number[][] = [];
-  for (let j = 0; j < n; j++) {
-    if (j > 0 && values[j] - values[j - 1] < CLUSTER_SEPARATION) groups[groups.length - 1].push(j);
-    else groups.push([j]);
-  }
+  const groups = closeGroups(values);
   if (groups.reduce((m, g) => Math.max(m, g.length), 0) * 2 > n) return dense();
   const order = Array.from({ length: n }, (_, j) => j);
   const v = bandedInverseIteration({ banded: a }, values, new Float64Array(n), order);
@@ -185,39 +181,8 @@ function eigenInOrder(u: BandedMatrix, rotation: number): BandedEigenResult {
  * span (V_g†AV_g diagonalised), A unitary or, with `hermitian`, Hermitian.
  */
 export function rediagonaliseGroup(v: ComplexMatrix, uv: ComplexMatrix, cols: number[], hermitian = false): void {
-  const n = v.rows, m = v.cols, k = cols.length;
-  const c = zeros(k, k);
-  for (let a = 0; a < k; a++) {
-    for (let b = 0; b < k; b++) {
-      let sr = 0, si = 0;
-      for (let r = 0; r < n; r++) {
-        const p = r * m + cols[a], q = r * m + cols[b];
-        sr += v.re[p] * uv.re[q] + v.im[p] * uv.im[q];
-        si += v.re[p] * uv.im[q] - v.im[p] * uv.re[q];
-      }
-      c.re[a * k + b] = sr;
-      c.im[a * k + b] = si;
-    }
-  }
+  const c = projectColumns(v, uv, cols);
   const z = hermitian ? new HermitianEigen(c, { hermiticityTolerance: Infinity }).vectors : new UnitaryEigen(c).vectors;
-  const rowRe = new Float64Array(k), rowIm = new Float64Array(k);
-  for (const mat of [v, uv]) {
-    for (let r = 0; r < n; r++) {
-      for (let a = 0; a < k; a++) {
-        let sr = 0, si = 0;
-        for (let b = 0; b < k; b++) {
-          const xr = mat.re[r * m + cols[b]], xi = mat.im[r * m + cols[b]];
-          const yr = z.re[b * k + a], yi = z.im[b * k + a];
-          sr += xr * yr - xi * yi;
-          si += xr * yi + xi * yr;
-        }
-        rowRe[a] = sr;
-        rowIm[a] = si;
-      }
-      for (let a = 0; a < k; a++) {
-        mat.re[r * m + cols[a]] = rowRe[a];
-        mat.im[r * m + cols[a]] = rowIm[a];
-      }
-    }
-  }
+  rotateColumnsInPlace(v, cols, z);
+  rotateColumnsInPlace(uv, cols, z);
 }

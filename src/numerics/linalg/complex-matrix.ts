@@ -257,3 +257,49 @@ export function maxAbs(a: ComplexMatrix): number {
   }
   return m;
 }
+
+/**
+ * C = V_S† W_S for the columns S = `cols` of V and W (n × m each): the k × k
+ * matrix of W in the span of those columns of V. With `rows`, only the first
+ * `rows` rows enter (the projection of a diagonal weight on those rows).
+ */
+export function projectColumns(v: ComplexMatrix, w: ComplexMatrix, cols: readonly number[], rows: number = v.rows): ComplexMatrix {
+  const m = v.cols, k = cols.length;
+  const c = zeros(k, k);
+  for (let a = 0; a < k; a++) {
+    for (let b = 0; b < k; b++) {
+      let sr = 0, si = 0;
+      for (let r = 0; r < rows; r++) {
+        const p = r * m + cols[a], q = r * m + cols[b];
+        sr += v.re[p] * w.re[q] + v.im[p] * w.im[q];
+        si += v.re[p] * w.im[q] - v.im[p] * w.re[q];
+      }
+      c.re[a * k + b] = sr;
+      c.im[a * k + b] = si;
+    }
+  }
+  return c;
+}
+
+/** M_S ← M_S Z in place, for the columns S = `cols` of M and a k × k matrix Z. */
+export function rotateColumnsInPlace(m: ComplexMatrix, cols: readonly number[], z: ComplexMatrix): void {
+  const n = m.rows, width = m.cols, k = cols.length;
+  const rowRe = new Float64Array(k), rowIm = new Float64Array(k);
+  for (let r = 0; r < n; r++) {
+    for (let a = 0; a < k; a++) {
+      let sr = 0, si = 0;
+      for (let b = 0; b < k; b++) {
+        const xr = m.re[r * width + cols[b]], xi = m.im[r * width + cols[b]];
+        const yr = z.re[b * k + a], yi = z.im[b * k + a];
+        sr += xr * yr - xi * yi;
+        si += xr * yi + xi * yr;
+      }
+      rowRe[a] = sr;
+      rowIm[a] = si;
+    }
+    for (let a = 0; a < k; a++) {
+      m.re[r * width + cols[a]] = rowRe[a];
+      m.im[r * width + cols[a]] = rowIm[a];
+    }
+  }
+}

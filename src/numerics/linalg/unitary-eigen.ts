@@ -26,7 +26,7 @@
  * residual exposes any remaining defect.
  */
 import type { ComplexMatrix } from './complex-matrix.ts';
-import { identity, multiply, zeros } from './complex-matrix.ts';
+import { identity, multiply, projectColumns, rotateColumnsInPlace, scale, zeros } from './complex-matrix.ts';
 import { assertUnitary, DEFAULT_UNITARITY_TOLERANCE } from './checks.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
 import { LuDecomposition } from './lu.ts';
@@ -485,42 +485,10 @@ function refineClusters(v: ComplexMatrix, uv: ComplexMatrix): Float64Array | nul
 }
 
 function rediagonalise(v: ComplexMatrix, uv: ComplexMatrix, cols: number[], phase: number): void {
-  const n = v.rows, k = cols.length;
-  const c = zeros(k, k);
-  const gr = Math.cos(phase), gi = -Math.sin(phase);
-  for (let a = 0; a < k; a++) {
-    for (let b = 0; b < k; b++) {
-      let sr = 0, si = 0;
-      for (let r = 0; r < n; r++) {
-        const p = r * n + cols[a], q = r * n + cols[b];
-        sr += v.re[p] * uv.re[q] + v.im[p] * uv.im[q];
-        si += v.re[p] * uv.im[q] - v.im[p] * uv.re[q];
-      }
-      c.re[a * k + b] = gr * sr - gi * si;
-      c.im[a * k + b] = gr * si + gi * sr;
-    }
-  }
+  const c = scale(projectColumns(v, uv, cols), Math.cos(phase), -Math.sin(phase));
   const z = new HermitianEigen(antiHermitianPart(c)).vectors;
-  for (const m of [v, uv]) {
-    const rowRe = new Float64Array(k), rowIm = new Float64Array(k);
-    for (let r = 0; r < n; r++) {
-      for (let a = 0; a < k; a++) {
-        let sr = 0, si = 0;
-        for (let b = 0; b < k; b++) {
-          const xr = m.re[r * n + cols[b]], xi = m.im[r * n + cols[b]];
-          const yr = z.re[b * k + a], yi = z.im[b * k + a];
-          sr += xr * yr - xi * yi;
-          si += xr * yi + xi * yr;
-        }
-        rowRe[a] = sr;
-        rowIm[a] = si;
-      }
-      for (let a = 0; a < k; a++) {
-        m.re[r * n + cols[a]] = rowRe[a];
-        m.im[r * n + cols[a]] = rowIm[a];
-      }
-    }
-  }
+  rotateColumnsInPlace(v, cols, z);
+  rotateColumnsInPlace(uv, cols, z);
 }
 
 function residualNorm(v: ComplexMatrix, uv: ComplexMatrix, phases: Float64Array): number {

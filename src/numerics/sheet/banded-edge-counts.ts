@@ -38,7 +38,7 @@
  * same counts on the same ribbon.
  */
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
-import { zeros } from '../linalg/complex-matrix.ts';
+import { projectColumns, rotateColumnsInPlace } from '../linalg/complex-matrix.ts';
 import { HermitianEigen } from '../linalg/hermitian-eigen.ts';
 import type { EdgeCountReport, EdgeCrossing } from '../portrait.ts';
 import { aboveCut, circularDifference } from '../quasienergy-bands.ts';
@@ -347,37 +347,6 @@ function splitDegenerate(eps: Float64Array, v: ComplexMatrix, edgeCells: number,
 }
 
 function rotateByLowWeight(v: ComplexMatrix, cols: number[], rows: number): void {
-  const k = cols.length, m = v.cols, n = v.rows;
-  const p = zeros(k, k);
-  for (let a = 0; a < k; a++) {
-    for (let b = 0; b < k; b++) {
-      let re = 0, im = 0;
-      for (let r = 0; r < rows; r++) {
-        const x = r * m + cols[a], y = r * m + cols[b];
-        re += v.re[x] * v.re[y] + v.im[x] * v.im[y];
-        im += v.re[x] * v.im[y] - v.im[x] * v.re[y];
-      }
-      p.re[a * k + b] = re;
-      p.im[a * k + b] = im;
-    }
-  }
-  const z = new HermitianEigen(p, { hermiticityTolerance: Infinity }).vectors;
-  const rowRe = new Float64Array(k), rowIm = new Float64Array(k);
-  for (let r = 0; r < n; r++) {
-    for (let a = 0; a < k; a++) {
-      let sr = 0, si = 0;
-      for (let b = 0; b < k; b++) {
-        const xr = v.re[r * m + cols[b]], xi = v.im[r * m + cols[b]];
-        const yr = z.re[b * k + a], yi = z.im[b * k + a];
-        sr += xr * yr - xi * yi;
-        si += xr * yi + xi * yr;
-      }
-      rowRe[a] = sr;
-      rowIm[a] = si;
-    }
-    for (let a = 0; a < k; a++) {
-      v.re[r * m + cols[a]] = rowRe[a];
-      v.im[r * m + cols[a]] = rowIm[a];
-    }
-  }
+  const z = new HermitianEigen(projectColumns(v, v, cols, rows), { hermiticityTolerance: Infinity }).vectors;
+  rotateColumnsInPlace(v, cols, z);
 }

@@ -1,7 +1,7 @@
-import { afterEach, describe, expect, it } from 'vitest';
-import { mkdtempSync, readFileSync, rmSync, readdirSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { describe, expect, it } from 'vitest';
+import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
+import { capture, scratchDirectories } from '../../support/scratch.ts';
 import { createRequire } from 'node:module';
 import { verifyCatalogue } from '../../../src/catalogue/verify/catalogue.ts';
 import { mergeSummaries, MergeError } from '../../../src/catalogue/records/summary.ts';
@@ -9,20 +9,7 @@ import { canonicalJson } from '../../../src/catalogue/records/canonical-json.ts'
 import { runMerge, runVerifiedCheck } from '../../../src/cli/commands/verify-summary.ts';
 
 const fixtures = ['two-step-chain-correct', 'two-step-chain-wrong-frame', 'qwz-sign-error', 'broken-file'].map((id) => `test/fixtures/verification/${id}.json`);
-const dirs: string[] = [];
-afterEach(() => {
-  for (const d of dirs.splice(0)) rmSync(d, { recursive: true, force: true });
-});
-function scratch(): string {
-  const d = mkdtempSync(join(tmpdir(), 'strobe-shard-'));
-  dirs.push(d);
-  return d;
-}
-function capture() {
-  const out: string[] = [];
-  const err: string[] = [];
-  return { io: { stdout: { write: (t: string) => out.push(t) }, stderr: { write: (t: string) => err.push(t) } }, out, err };
-}
+const scratch = scratchDirectories('strobe-shard-');
 
 describe('sharded runs and merging', () => {
   it('two shards merged give the summary of one whole run', async () => {

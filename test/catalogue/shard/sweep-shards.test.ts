@@ -4,10 +4,10 @@
  * and a merge give byte for byte what one whole run gives (canonical JSON), and
  * a shared cache directory lets a later job reuse every point.
  */
-import { afterEach, describe, expect, it } from 'vitest';
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { describe, expect, it } from 'vitest';
+import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { capture, scratchDirectories } from '../../support/scratch.ts';
 import { spawnSync } from 'node:child_process';
 import { run as sweepCommand } from '../../../src/cli/commands/sweep.ts';
 import { runMerge, runVerifiedCheck } from '../../../src/cli/commands/verify-summary.ts';
@@ -18,20 +18,7 @@ import { resolveShard, shardFromEnvironment, shardOfPoint } from '../../../src/c
 
 const chain = 'test/fixtures/verification/two-step-chain-correct.json';
 const vary = ['--vary', 'theta2=0.2:2.8:7'];
-const dirs: string[] = [];
-afterEach(() => {
-  for (const d of dirs.splice(0)) rmSync(d, { recursive: true, force: true });
-});
-function scratch(): string {
-  const d = mkdtempSync(join(tmpdir(), 'strobe-sweep-shards-'));
-  dirs.push(d);
-  return d;
-}
-function capture() {
-  const out: string[] = [];
-  const err: string[] = [];
-  return { io: { stdout: { write: (t: string) => out.push(t) }, stderr: { write: (t: string) => err.push(t) } }, out, err };
-}
+const scratch = scratchDirectories('strobe-sweep-shards-');
 
 describe('shard indices', () => {
   it('assign sweep points round-robin, every point to exactly one shard', () => {
