@@ -28,6 +28,9 @@
 
 /** A state with m ≥ this on an edge is drawn as a state of that edge. */
 export const LOCALISATION_THRESHOLD = 0.5;
+/** The measure in one sentence, for legends. */
+export const LOCALISATION_MEASURE =
+  'weight in the outer few decay lengths of an edge beyond what an evenly spread state has there, m = (p − u)/(1 − u); extended states stay below 1/7';
 /** States at one momentum closer than this (units π/T) count as one degenerate group. */
 export const DEGENERATE_QUASIENERGY = 1e-9;
 

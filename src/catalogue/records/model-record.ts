@@ -60,8 +60,8 @@ export interface SpectrumRecord {
   finiteDirection: number | null;
   /** Cells across the plotted ribbon or along the chain. */
   width: number;
-  /** 'all': every state; 'near-gap-labels': only the states near 0 and π/T (long open chains, computed by shift-invert). */
-  coverage: 'all' | 'near-gap-labels';
+  /** 'all' (also when absent): every state; 'near-gap-labels': only the states near 0 and π/T (long open chains, computed by shift-invert). */
+  coverage?: 'all' | 'near-gap-labels';
   /** Momenta along the edge (reduced), decimated for plotting; empty for an open chain. */
   momenta: number[];
   /** Quasienergies (units π/T) per momentum (one row for an open chain), rounded for plotting. */
@@ -69,8 +69,8 @@ export interface SpectrumRecord {
   /** Edge weight of each state: low edge, high edge (rounded to 3 decimals). */
   lowEdgeWeight: number[][];
   highEdgeWeight: number[][];
-  /** The edge-localisation measure of every state (docs/conventions.md, "Edge localisation"). */
-  localisation: LocalisationRecord;
+  /** The edge-localisation measure of every state (docs/conventions.md, "Edge localisation"); written by engine 0.6.0 and later. */
+  edgeLocalisation?: LocalisationRecord;
   /** Every how many momenta of the computed spectrum were kept. */
   stride: number;
 }
@@ -79,9 +79,11 @@ export interface SpectrumRecord {
  * Per state, m = max(0, (p − u)/(1 − u)) with p its weight in the outer `cells`
  * cells of one edge and u = cells/width (an even spread): a state with m ≥
  * `threshold` on an edge belongs to it; extended states stay below 1/7 on each
- * edge. Same shape as quasienergies (rounded to 3 decimals).
+ * edge. Same shape as quasienergies (rounded to 3 decimals). `measure` says so
+ * in one sentence, for legends.
  */
 export interface LocalisationRecord {
+  measure: string;
   cells: number;
   uniformWeight: number;
   threshold: number;

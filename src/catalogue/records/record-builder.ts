@@ -12,7 +12,7 @@ import { ANOMALOUS_DEFINITION } from '../verify/anomalous.ts';
 import { gapEvidence } from '../verify/sheet-verdicts.ts';
 import type { ChainView } from '../verify/chain-view.ts';
 import type { VerdictPolicy } from '../verify/policy.ts';
-import { LOCALISATION_THRESHOLD } from '../../numerics/edge-localisation.ts';
+import { LOCALISATION_MEASURE, LOCALISATION_THRESHOLD } from '../../numerics/edge-localisation.ts';
 
 export interface EngineIdentity {
   version: string;
@@ -98,7 +98,8 @@ export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisR
       quasienergies: [kept.map((i) => roundTo(chain.quasienergies[i], 1e-5))],
       lowEdgeWeight: [kept.map((i) => roundTo(chain.lowEdgeWeight[i], 1e-3))],
       highEdgeWeight: [kept.map((i) => roundTo(chain.highEdgeWeight[i], 1e-3))],
-      localisation: {
+      edgeLocalisation: {
+        measure: LOCALISATION_MEASURE,
         cells: loc.cells,
         uniformWeight: roundTo(loc.uniformWeight, 1e-6),
         threshold: LOCALISATION_THRESHOLD,
@@ -139,7 +140,8 @@ export function sheetAnalysis(p: SheetPortrait, policy: VerdictPolicy): Analysis
       quasienergies: roundRows(decimateRows(plot.quasienergies, stride), 1e-5),
       lowEdgeWeight: roundRows(decimateRows(plot.lowEdgeWeight, stride), 1e-3),
       highEdgeWeight: roundRows(decimateRows(plot.highEdgeWeight, stride), 1e-3),
-      localisation: {
+      edgeLocalisation: {
+        measure: LOCALISATION_MEASURE,
         cells: plot.localisationCells,
         uniformWeight: roundTo(plot.uniformWeight, 1e-6),
         threshold: LOCALISATION_THRESHOLD,

@@ -109,7 +109,7 @@ describe('strobe check over shards', () => {
     expect(partFiles).toEqual([['two-step-chain-correct.0.json'], ['two-step-chain-correct.0.json']]);
     const m = capture();
     expect(await runMerge([a, b, '--out', join(merged, 'catalogue.json')], m.io)).toBe(1); // qwz-sign-error is disputed
-    expect(m.out.join('')).toContain('with the sweeps of 2 sweep part(s)');
+    expect(m.out.join('')).toContain('with the sweeps of 2 sweep parts');
     expect(readFileSync(join(merged, 'catalogue.json'), 'utf8')).toBe(readFileSync(join(whole, 'catalogue.json'), 'utf8'));
     for (const id of ['two-step-chain-correct', 'qwz-sign-error']) {
       expect(readFileSync(join(merged, 'models', `${id}.json`), 'utf8'), id).toBe(readFileSync(join(whole, 'models', `${id}.json`), 'utf8'));
