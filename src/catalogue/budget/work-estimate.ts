@@ -29,11 +29,20 @@
  *          ribbon     one evaluation of the (width·n)-state ribbon per momentum
  *                     (numerics.ribbon, default 24 cells, 200 momenta), once per
  *                     edge direction the claims name, and again at 1.5× the width
- *                     (the second size every edge count is checked at);
+ *                     (the second size every edge count is checked at); ribbons of
+ *                     more than DENSE_RIBBON_STATES states take the banded route
+ *                     (only the states near each gap label): BANDED_RIBBON_NS per
+ *                     state and momentum, on about BANDED_RIBBON_MOMENTA momenta per
+ *                     gap, linear in the width. A ribbon the engine widens on its
+ *                     own (to 6 decay lengths, within numerics.ribbon.maxWidth) is
+ *                     not foreseen here: the file does not say how far edge states
+ *                     reach, and the time limit stays the backstop;
  *  chains  gap scan   kGrid[0] (default 128) momenta, three passes (gaps, symmetries,
  *                     symmetric time frames);
  *          open chain one evaluation of the (length·n)-state chain (numerics.chainLength,
- *                     default at most 160 cells), and again at 1.5× the length;
+ *                     default 160 cells in the estimate), and again at 1.5× the length;
+ *                     beyond DENSE_CHAIN_STATES states only the states near 0 and π/T
+ *                     are computed, BANDED_CHAIN_NS per state;
  *  sweeps             every grid point repeats the bulk stages the sweep asks for.
  *
  * Memory: a Floquet sample takes SAMPLE_BYTES_PER_ENTRY · n² + SAMPLE_OVERHEAD_BYTES
@@ -49,8 +58,7 @@
  * prints estimate against measurement per stage, and docs/benchmarks.md keeps
  * the last figures. They are central estimates (within a factor of about 2.5
  * either way on those models), not bounds: the time limit stays the backstop.
- * When an engine changes its cost (e.g. banded ribbons), adjust the stage here
- * and re-run the bench.
+ * When an engine changes its cost, adjust the stage here and re-run the bench.
  */
 import type { ModelDocument } from '../model-types.generated.ts';
 
@@ -88,6 +96,18 @@ export const SAMPLER_CACHE_LIMIT = 1 << 16;
 export const OPEN_CHAIN_MATRICES = 4;
 /** Dense working matrices of the ribbon's size besides the kept eigenvectors. */
 export const RIBBON_WORK_MATRICES = 4;
+/** Ribbons up to this many states are diagonalised whole (src/numerics/sheet/ribbon-edge-counts.ts). */
+export const DENSE_RIBBON_STATES = 240;
+/** Banded ribbon route: nanoseconds per state and momentum for every gap (bench ribbon-counts-2000 and -10000: 8–20 µs). */
+export const BANDED_RIBBON_NS = 15_000;
+/** Banded ribbon route: momenta per gap, base grid and refinement (32 at least; small gaps need more). */
+export const BANDED_RIBBON_MOMENTA = 64;
+/** Banded routes: bytes held per state (band operators, windows, heap; bench peak RSS 10 kB per state). */
+export const BANDED_BYTES_PER_STATE = 10_000;
+/** Open chains up to this many states are diagonalised whole (src/numerics/chain/open-chain.ts). */
+export const DENSE_CHAIN_STATES = 800;
+/** Long open chains: nanoseconds per state for the states near 0 and π/T (bench chain-open-10000: about 40 µs). */
+export const BANDED_CHAIN_NS = 40_000;
 
 /** Engine defaults the estimate assumes when the file does not set a hint (docs/model-format.md). */
 export const DEFAULTS = {
@@ -223,14 +243,17 @@ function sheetStages(doc: ModelDocument, shape: Shape, bulkOnly: { chern: boolea
     const cuts = Math.max(1, directions.size);
     const states = width * n;
     const second = Math.ceil(DEFAULTS.secondSize * width) * n;
-    const seconds = cuts * momenta * (evaluationNs(shape, states) + evaluationNs(shape, second)) * 1e-9;
+    const gaps = Math.max(2, (doc.claims?.gaps ?? []).length);
+    // One size of the ribbon: the dense route, or the banded route (per gap, linear in the states).
+    const sizeNs = (m: number) => (m <= DENSE_RIBBON_STATES ? momenta * evaluationNs(shape, m) : gaps * BANDED_RIBBON_MOMENTA * m * BANDED_RIBBON_NS * (shape.isStatic ? 1 : shape.units));
+    const seconds = cuts * (sizeNs(states) + sizeNs(second)) * 1e-9;
     const drivers: CostDriver[] = [];
-    if (ribbon?.width !== undefined) drivers.push({ pointer: '/numerics/ribbon/width', text: `a ribbon ${width} cells wide (${states} states, and ${second} at 1.5× the width)`, excess: (width / DEFAULTS.ribbonWidth) ** 3 });
+    if (ribbon?.width !== undefined) drivers.push({ pointer: '/numerics/ribbon/width', text: `a ribbon ${width} cells wide (${states} states, and ${second} at 1.5× the width)`, excess: states <= DENSE_RIBBON_STATES ? (width / DEFAULTS.ribbonWidth) ** 3 : width / DEFAULTS.ribbonWidth });
     if (ribbon?.momenta !== undefined) drivers.push({ pointer: '/numerics/ribbon/momenta', text: `${momenta} momenta along the edge`, excess: momenta / DEFAULTS.ribbonMomenta });
     stages.push({
       stage: 'ribbon spectra',
       seconds,
-      memoryBytes: bandBytes + momenta * sampleBytes(second) + RIBBON_WORK_MATRICES * second * second * COMPLEX_BYTES,
+      memoryBytes: bandBytes + (second <= DENSE_RIBBON_STATES ? momenta * sampleBytes(second) + RIBBON_WORK_MATRICES * second * second * COMPLEX_BYTES : BANDED_BYTES_PER_STATE * second),
       detail: `${cuts} × ${momenta} momenta × ${states}-state ribbon operators, then ${second} states`,
       drivers: [...drivers, ...structureDrivers(shape)],
     });
@@ -255,13 +278,14 @@ function chainStages(doc: ModelDocument, shape: Shape, bulkOnly: boolean): Stage
     const length = doc.numerics?.chainLength ?? DEFAULTS.chainLength;
     const states = length * n;
     const second = Math.ceil(DEFAULTS.secondSize * length) * n;
+    const sizeNs = (m: number) => (m <= DENSE_CHAIN_STATES ? evaluationNs(shape, m) : m * BANDED_CHAIN_NS * (shape.isStatic ? 1 : shape.units));
     stages.push({
       stage: 'open chain',
-      seconds: (evaluationNs(shape, states) + evaluationNs(shape, second)) * 1e-9,
-      memoryBytes: OPEN_CHAIN_MATRICES * second * second * COMPLEX_BYTES,
+      seconds: (sizeNs(states) + sizeNs(second)) * 1e-9,
+      memoryBytes: second <= DENSE_CHAIN_STATES ? OPEN_CHAIN_MATRICES * second * second * COMPLEX_BYTES : BANDED_BYTES_PER_STATE * second,
       detail: `open chains of ${states} and ${second} states`,
       drivers: [
-        ...(doc.numerics?.chainLength !== undefined ? [{ pointer: '/numerics/chainLength', text: `an open chain of ${length} cells (${states} states, and ${second} at 1.5× the length)`, excess: (length / DEFAULTS.chainLength) ** 3 }] : []),
+        ...(doc.numerics?.chainLength !== undefined ? [{ pointer: '/numerics/chainLength', text: `an open chain of ${length} cells (${states} states, and ${second} at 1.5× the length)`, excess: states <= DENSE_CHAIN_STATES ? (length / DEFAULTS.chainLength) ** 3 : length / DEFAULTS.chainLength }] : []),
         ...structureDrivers(shape),
       ],
     });

@@ -2,7 +2,7 @@
 // the test from the model's formula (work-estimate.ts), not pasted from its output.
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { DEFAULTS, estimateWork, EVALUATION_NS, SMALL_MATRIX, STATIC_UNITS } from '../../../src/catalogue/budget/work-estimate.ts';
+import { BANDED_CHAIN_NS, DEFAULTS, DENSE_CHAIN_STATES, DENSE_RIBBON_STATES, estimateWork, EVALUATION_NS, SMALL_MATRIX, STATIC_UNITS } from '../../../src/catalogue/budget/work-estimate.ts';
 import { budgetIssue, DEFAULT_TIME_LIMIT_SECONDS, durationText, limitsFor } from '../../../src/catalogue/budget/limits.ts';
 import type { ModelDocument } from '../../../src/catalogue/model-types.generated.ts';
 import { chainDocument, sheetDocument } from '../../support/synthetic-models.ts';
@@ -19,11 +19,22 @@ describe('estimateWork', () => {
     expect(ribbon.seconds).toBeCloseTo(expected, 9);
   });
 
-  it('grows like the cube of the open chain for long chains', () => {
+  it('grows like the cube of a chain diagonalised whole, and linearly once only the states near 0 and π/T are computed', () => {
     const at = (length: number) => stage(chainDocument({ orbitals: 2, numerics: { chainLength: length } }), 'open chain').seconds;
-    // (1 + 100/n) → 1 for n ≫ 100: doubling a long chain costs close to 2³.
-    expect(at(4000) / at(2000)).toBeGreaterThan(7.5);
-    expect(at(4000) / at(2000)).toBeLessThan(8);
+    // Up to DENSE_CHAIN_STATES states (and 1.5× that) the chain is diagonalised whole: (1 + 100/n) → 1, doubling costs close to 2³.
+    expect(2 * 1.5 * 260).toBeLessThanOrEqual(DENSE_CHAIN_STATES);
+    expect(at(260) / at(130)).toBeGreaterThan(6.5);
+    expect(at(260) / at(130)).toBeLessThan(8);
+    // Long chains take the banded route: BANDED_CHAIN_NS per state, at the length and at 1.5× it.
+    expect(at(4000) / at(2000)).toBeCloseTo(2, 9);
+    // The synthetic chain has two constant steps: two segment units per state.
+    expect(at(2000)).toBeCloseTo((2 * 2000 + 2 * 3000) * BANDED_CHAIN_NS * 2 * 1e-9, 9);
+  });
+
+  it('prices a ribbon wider than DENSE_RIBBON_STATES by the banded route, linear in the width', () => {
+    const at = (width: number) => stage(sheetDocument({ orbitals: 2, numerics: { ribbon: { width } } }), 'ribbon spectra').seconds;
+    expect(2 * 400).toBeGreaterThan(DENSE_RIBBON_STATES);
+    expect(at(800) / at(400)).toBeCloseTo(2, 9);
   });
 
   it('multiplies the bulk stages by the points of a sweep', () => {
@@ -50,11 +61,11 @@ describe('limits and refusals', () => {
   });
 
   it('name the field that inflates the costliest stage, with the estimate, and how to proceed', () => {
-    const model = doc(sheetDocument({ orbitals: 2, numerics: { ribbon: { width: 2000, momenta: 4096 } } }));
+    const model = doc(sheetDocument({ orbitals: 2, numerics: { ribbon: { width: 100000 } } }));
     const estimate = estimateWork(model);
     const issue = budgetIssue(estimate, limitsFor(model))!;
     expect(issue.pointer).toBe('/numerics/ribbon/width');
-    expect(issue.message).toContain('numerics.ribbon.width asks for a ribbon 2000 cells wide');
+    expect(issue.message).toContain('numerics.ribbon.width asks for a ribbon 100000 cells wide');
     expect(issue.message).toContain(`about ${durationText(estimate.seconds)} of computing`);
     expect(issue.hint).toMatch(/^lower numerics\.ribbon\.width .*--time-limit/);
   });
@@ -69,7 +80,7 @@ describe('limits and refusals', () => {
   });
 
   it('let a model through when its limits are raised far enough', () => {
-    const model = doc(chainDocument({ orbitals: 2, numerics: { chainLength: 600 } }));
+    const model = doc(chainDocument({ orbitals: 2, numerics: { chainLength: 300 } }));
     const estimate = estimateWork(model);
     expect(budgetIssue(estimate, limitsFor(model, { timeLimitSeconds: 1 }))).toBeDefined();
     expect(budgetIssue(estimate, limitsFor(model, { timeLimitSeconds: Math.ceil(estimate.seconds) + 1 }))).toBeUndefined();
