@@ -18,8 +18,6 @@
  *    below the tolerance. T_k(X) has bandwidth k·b, so the sum has bandwidth
  *    m·b; entries far from the diagonal are tiny and are cut off with their
  *    own bound (BandedMatrix.truncate). The reported error is the sum of both.
- * The vector route (applyExpMinusIHt) uses the same expansion with three
- * vectors instead of band matrices: O(m n b), no matrix formed.
  */
 import type { ComplexMatrix } from './complex-matrix.ts';
 import { zeros } from './complex-matrix.ts';
@@ -231,61 +229,4 @@ function chebyshevExponential(h: BandedMatrix, t: number, tolerance: number): Ba
   }
   const cut = total.truncate(tolerance / 2);
   return { matrix: cut.matrix, error: tail + cut.dropped, route: 'chebyshev' };
-}
-
-/**
- * x ← exp(−iHt)x by the Chebyshev expansion applied to the vector (three
- * work vectors, O(m n b)); returns the bound on the error, relative to ‖x‖.
- */
-export function applyExpMinusIHt(h: BandedMatrix, t: number, xr: Float64Array, xi: Float64Array, tolerance = DEFAULT_EXPONENTIAL_TOLERANCE): number {
-  const n = h.n;
-  const { centre, radius } = spectralInterval(h);
-  const x = Math.abs(radius * t);
-  const { degree, tail } = chebyshevDegree(x, tolerance);
-  const c = besselJ(degree, x);
-  const sign = t >= 0 ? 1 : -1;
-  const inv = radius > 0 ? 1 / radius : 0;
-  // v_{k} = T_k(X) x; X v = (H v − a v)/ρ.
-  let pr = Float64Array.from(xr), pi = Float64Array.from(xi);
-  let qr = new Float64Array(n), qi = new Float64Array(n);
-  const sr = new Float64Array(n), si = new Float64Array(n);
-  const hr = new Float64Array(n), hi = new Float64Array(n);
-  const applyX = (ar: Float64Array, ai: Float64Array, outR: Float64Array, outI: Float64Array) => {
-    h.apply(ar, ai, outR, outI);
-    for (let r = 0; r < n; r++) {
-      outR[r] = (outR[r] - centre * ar[r]) * inv;
-      outI[r] = (outI[r] - centre * ai[r]) * inv;
-    }
-  };
-  for (let r = 0; r < n; r++) { sr[r] = c[0] * pr[r]; si[r] = c[0] * pi[r]; }
-  if (degree >= 1) {
-    applyX(pr, pi, qr, qi);
-    // swap so that (pr, pi) = T_1 x, (qr, qi) = T_0 x
-    [pr, qr] = [qr, pr];
-    [pi, qi] = [qi, pi];
-    for (let k = 1; k <= degree; k++) {
-      const m = k % 4;
-      const fr = [1, 0, -1, 0][m] * 2 * c[k], fi = [0, -1, 0, 1][m] * sign * 2 * c[k];
-      for (let r = 0; r < n; r++) {
-        sr[r] += fr * pr[r] - fi * pi[r];
-        si[r] += fr * pi[r] + fi * pr[r];
-      }
-      if (k < degree) {
-        applyX(pr, pi, hr, hi);
-        for (let r = 0; r < n; r++) {
-          const nr = 2 * hr[r] - qr[r], ni = 2 * hi[r] - qi[r];
-          qr[r] = pr[r];
-          qi[r] = pi[r];
-          pr[r] = nr;
-          pi[r] = ni;
-        }
-      }
-    }
-  }
-  const gr = Math.cos(centre * t), gi = -Math.sin(centre * t);
-  for (let r = 0; r < n; r++) {
-    xr[r] = gr * sr[r] - gi * si[r];
-    xi[r] = gr * si[r] + gi * sr[r];
-  }
-  return tail;
 }
