@@ -34,14 +34,16 @@ const chain = (id: string, extra: Record<string, unknown> = {}) => ({ ...chainDo
 // File names that must not become unsafe record ids or page paths.
 write('.json', chain('dot-name'), { status: 'invalid', pointer: '/id', message: 'does not match the file name ".json"' });
 write('..json', chain('dots'), { status: 'invalid', pointer: '/id', message: 'does not match the file name' });
-// Valid files at the format's limits: refused by the work estimate, never computed.
+// Valid files at the format's limits: refused by the work estimate, never computed (but see limit-ribbon).
 // 64 orbitals and 64 segments; each segment switches on a few bonds only, to keep the file small.
 const wide = sheetDocument({ id: 'limit-orbitals-and-segments', orbitals: 64 }) as { drive: { segments: { hoppings: unknown[]; onsite: unknown[] }[] } };
 const bonds = wide.drive.segments[0].hoppings;
 wide.drive.segments = Array.from({ length: 64 }, (_, s) => ({ label: `step ${s + 1}`, duration: 'T/64', onsite: [], hoppings: bonds.slice((s * 8) % bonds.length, ((s * 8) % bonds.length) + 8) }));
 write('limit-orbitals-and-segments.json', wide, refused('/lattice/orbitals'));
-write('limit-open-chain.json', chainDocument({ id: 'limit-open-chain', orbitals: 2, numerics: { chainLength: 4000 } }), refused('/numerics/chainLength'));
-write('limit-ribbon.json', sheetDocument({ id: 'limit-ribbon', orbitals: 2, numerics: { ribbon: { width: 2000, momenta: 4096 } } }), refused('/numerics/ribbon/width'));
+write('limit-open-chain.json', chainDocument({ id: 'limit-open-chain', orbitals: 4, numerics: { chainLength: 100000 } }), refused('/numerics/chainLength'));
+// A ribbon at the format's widest, with the most momenta: the banded route (only the
+// states near each gap label, linear in the width) computes it well inside the budget.
+write('limit-ribbon.json', sheetDocument({ id: 'limit-ribbon', orbitals: 2, numerics: { ribbon: { width: 2000, momenta: 4096 } } }), { status: 'portrait-only' });
 write('limit-kgrid.json', sheetDocument({ id: 'limit-kgrid', orbitals: 2, numerics: { kGrid: [1024, 1024] } }), refused('/numerics/kGrid'));
 const sweeps = chainDocument({
   id: 'limit-sweeps',
