@@ -96,6 +96,34 @@ describe('demo inventory: the status each story intends', () => {
   });
 });
 
+describe('docs/worked-example.md: the Haldane sheet numbers derived by hand', () => {
+  // H = d₀ + d·σ with d_z(K) = M − 3√3 t₂ sin φ, |d(Γ)| = √(9t₁² + M²), |d(b₁/2)| = √(t₁² + M²) at φ = π/2
+  // (derived in the worked example); quasienergy = energy · T/π. Relative tolerance 1e-9.
+  const t1 = 1, t2 = 0.2, M = 0.4, T = 0.5;
+  const close = (actual: number, expected: number) => expect(Math.abs(actual - expected)).toBeLessThan(1e-9 * Math.abs(expected));
+
+  it('gaps: 2|M − 3√3 t₂|T/π at K and 2(1 − √(9t₁² + M²)T/π) at Γ', () => {
+    const gaps = record('haldane-sheet').analysis!.gaps;
+    const zero = gaps.find((g) => g.label === 0)!, pi = gaps.find((g) => g.label === 1)!;
+    close(zero.minimalGap, (2 * Math.abs(M - 3 * Math.sqrt(3) * t2) * T) / Math.PI);
+    expect(zero.at.map((x) => Math.round(3 * x))).toEqual([1, 2]);
+    close(pi.minimalGap, 2 * (1 - (Math.sqrt(9 * t1 * t1 + M * M) * T) / Math.PI));
+    expect(pi.at).toEqual([0, 0]);
+  });
+
+  it('gap tolerance: ½ · π · (band width) / 24', () => {
+    const gap = record('haldane-sheet').analysis!.gaps.find((g) => g.label === 0)!;
+    const top = (Math.sqrt(9 * t1 * t1 + M * M) * T) / Math.PI, edge = (Math.abs(M - 3 * Math.sqrt(3) * t2) * T) / Math.PI;
+    close(gap.tolerance, (0.5 * Math.PI * (top - edge)) / 24);
+  });
+
+  it('band path: ±√(t₁² + M²)T/π at b₁/2 (rounded to 1e-5 in records)', () => {
+    const path = record('haldane-sheet').analysis!.bandPath!;
+    const corner = path.corners.find((c) => c.label === 'b₁/2')!.index;
+    expect(Math.abs(path.quasienergies[corner][1] - (Math.sqrt(t1 * t1 + M * M) * T) / Math.PI)).toBeLessThanOrEqual(5e-6);
+  });
+});
+
 describe('demo inventory: what every entry carries', () => {
   it.each(Object.keys(documents))('%s has a description with formulas, tags, lab maintainers and DOI references', (id) => {
     const doc = documents[id];
