@@ -86,7 +86,8 @@ function twoStep(id: string, theta1: number, theta2: number) {
     },
     claims: {
       symmetryClass: 'BDI',
-      symmetries: { chiral: { operator: [[1, 0], [0, -1]], symmetricTimes: ['T/4', '3*T/4'] } },
+      // Real hoppings: T = K holds in the symmetric frames, and with Γ it makes the class BDI.
+      symmetries: { chiral: { operator: [[1, 0], [0, -1]], symmetricTimes: ['T/4', '3*T/4'] }, timeReversal: { unitary: [[1, 0], [0, 1]] } },
       gaps: [{ quasienergy: 0, invariant: theta2 > theta1 ? 1 : 0 }],
     },
     numerics: { chainLength: 40 },

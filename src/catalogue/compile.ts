@@ -17,8 +17,10 @@ export interface CompiledModel {
   drive: LatticeDrive;
   symmetries: {
     chiral?: ComplexMatrix;
-    particleHole?: { unitary: ComplexMatrix };
-    timeReversal?: { unitary: ComplexMatrix };
+    /** The chiral claim's symmetricTimes, evaluated at these parameters, in the file's order. */
+    chiralTimes?: number[];
+    particleHole?: { unitary: ComplexMatrix; antiunitary: boolean };
+    timeReversal?: { unitary: ComplexMatrix; antiunitary: boolean };
   };
   /** True when the model has pairing terms and the drive acts on Nambu components. */
   nambu: boolean;
@@ -144,8 +146,13 @@ export function compileModel(model: LoadedModel, overrides?: Record<string, numb
   const claimed = doc.claims.symmetries;
   const symmetries: CompiledModel['symmetries'] = {};
   if (claimed?.chiral) symmetries.chiral = matrix(claimed.chiral.operator, '/claims/symmetries/chiral/operator');
-  if (claimed?.particleHole) symmetries.particleHole = { unitary: matrix(claimed.particleHole.unitary, '/claims/symmetries/particleHole/unitary') };
-  if (claimed?.timeReversal) symmetries.timeReversal = { unitary: matrix(claimed.timeReversal.unitary, '/claims/symmetries/timeReversal/unitary') };
+  if (claimed?.chiral?.symmetricTimes) symmetries.chiralTimes = claimed.chiral.symmetricTimes.map((q, i) => num(q, joinPointer('/claims/symmetries/chiral/symmetricTimes', i)));
+  if (claimed?.particleHole) {
+    symmetries.particleHole = { unitary: matrix(claimed.particleHole.unitary, '/claims/symmetries/particleHole/unitary'), antiunitary: claimed.particleHole.antiunitary ?? true };
+  }
+  if (claimed?.timeReversal) {
+    symmetries.timeReversal = { unitary: matrix(claimed.timeReversal.unitary, '/claims/symmetries/timeReversal/unitary'), antiunitary: claimed.timeReversal.antiunitary ?? true };
+  }
 
   if (problems.length > 0) throw new CompileError(model.id, problems);
   const drive = nambu ? buildNambu(model.id, normal, pairings) : normal;

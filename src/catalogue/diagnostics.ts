@@ -52,12 +52,16 @@ export function splitPointer(pointer: string): string[] {
     .map((t) => t.replace(/~1/g, '/').replace(/~0/g, '~'));
 }
 
-/** One line of terminal output: `file:line:column  pointer  message  (hint)`. */
-export function formatDiagnostic(d: Diagnostic): string {
+/**
+ * One line of terminal output: `file:line:column  pointer  message  (hint)`,
+ * with warnings marked at the start (`warning: file:…`) so they stand apart
+ * from errors in any list.
+ */
+export function formatDiagnostic(d: Pick<Diagnostic, 'file' | 'line' | 'column' | 'pointer' | 'message' | 'severity'> & { hint?: string | null }): string {
   const pointer = d.pointer === '' ? '(document)' : d.pointer;
   const hint = d.hint ? `  (${d.hint})` : '';
   const level = d.severity === 'warning' ? 'warning: ' : '';
-  return `${d.file}:${d.line}:${d.column}  ${pointer}  ${level}${d.message}${hint}`;
+  return `${level}${d.file}:${d.line}:${d.column}  ${pointer}  ${d.message}${hint}`;
 }
 
 export function hasErrors(diagnostics: readonly Diagnostic[]): boolean {

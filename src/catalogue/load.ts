@@ -4,7 +4,7 @@
  * problem becomes a located Diagnostic; bad input never throws and never stops
  * the other models from loading.
  */
-import { readdir, readFile, stat } from 'node:fs/promises';
+import { readFile, stat } from 'node:fs/promises';
 import path from 'node:path';
 import type { ModelDocument } from './model-types.generated.ts';
 import { hasErrors, sortDiagnostics, type Diagnostic, type Issue } from './diagnostics.ts';
@@ -12,9 +12,10 @@ import { duplicateProperties, offsetOfIssue, parseWithPositions, positionOf, typ
 import { validateDocument } from './schema-validation.ts';
 import { evaluateParameters } from './parameters.ts';
 import { checkSemantics } from './semantic-checks.ts';
+import { isModelId, listInventory, MAX_FILE_BYTES, sourceHash } from './inventory.ts';
+import { checkDescription } from './description/check.ts';
 
-/** Largest model file read (bytes). Larger files are refused without reading them. */
-export const MAX_FILE_BYTES = 5 * 1024 * 1024;
+export { MAX_FILE_BYTES };
 
 export interface LoadedModel {
   id: string;
@@ -25,12 +26,16 @@ export interface LoadedModel {
   parameters: Record<string, number>;
   /** Non-fatal findings (e.g. unused parameters). */
   warnings: Diagnostic[];
+  /** Fingerprint of the file's bytes (inventory.ts, sourceHash): records carry it so stale ones can be told apart. */
+  sourceHash: string;
 }
 
 export interface ModelFailure {
   file: string;
   id?: string;
   diagnostics: Diagnostic[];
+  /** Fingerprint of the bytes, null when the file was not read. */
+  sourceHash: string | null;
 }
 
 export interface LoadReport {
@@ -38,44 +43,10 @@ export interface LoadReport {
   failures: ModelFailure[];
 }
 
-/** How a path is shown in diagnostics: relative to the working directory when inside it. */
-export function displayPath(file: string): string {
-  const relative = path.relative(process.cwd(), path.resolve(file));
-  return relative !== '' && !relative.startsWith('..') && !path.isAbsolute(relative) ? relative.split(path.sep).join('/') : path.resolve(file);
-}
-
 function fileDiagnostic(file: string, message: string, hint?: string, line = 1, column = 1): Diagnostic {
   const d: Diagnostic = { file, line, column, pointer: '', message, severity: 'error' };
   if (hint !== undefined) d.hint = hint;
   return d;
-}
-
-/** Files and folders → model file candidates (folders are scanned for *.json, not recursively). */
-async function expand(paths: string[], failures: ModelFailure[]): Promise<string[]> {
-  const files: string[] = [];
-  for (const p of paths) {
-    const shown = displayPath(p);
-    let info;
-    try {
-      info = await stat(p);
-    } catch {
-      failures.push({ file: shown, diagnostics: [fileDiagnostic(shown, 'no such file or folder', 'check the path; model files live in models/ by default')] });
-      continue;
-    }
-    if (info.isDirectory() && !p.endsWith('.json')) {
-      let entries;
-      try {
-        entries = await readdir(p, { withFileTypes: true });
-      } catch (error) {
-        failures.push({ file: shown, diagnostics: [fileDiagnostic(shown, `cannot read folder: ${(error as Error).message}`)] });
-        continue;
-      }
-      for (const entry of entries.filter((e) => e.name.endsWith('.json')).sort((a, b) => a.name.localeCompare(b.name))) {
-        files.push(path.join(p, entry.name));
-      }
-    } else files.push(p);
-  }
-  return files;
 }
 
 /** Byte index of the first byte that is not valid UTF-8, or -1. */
@@ -95,33 +66,38 @@ export function firstInvalidUtf8(bytes: Uint8Array): number {
 }
 
 /** Reads one file into text, or explains why it cannot be a model file. */
-async function readModelFile(file: string, shown: string): Promise<{ text: string } | { diagnostic: Diagnostic }> {
+async function readModelFile(file: string, shown: string): Promise<{ text: string; hash: string } | { diagnostic: Diagnostic; hash: string | null }> {
   let info;
   try {
     info = await stat(file);
   } catch {
-    return { diagnostic: fileDiagnostic(shown, 'no such file') };
+    return { diagnostic: fileDiagnostic(shown, 'no such file'), hash: null };
   }
-  if (info.isDirectory()) return { diagnostic: fileDiagnostic(shown, 'is a folder, not a model file', 'model files are single JSON files; rename the folder or move it out of the inventory') };
-  if (!info.isFile()) return { diagnostic: fileDiagnostic(shown, 'is not a regular file') };
+  if (info.isDirectory()) return { diagnostic: fileDiagnostic(shown, 'is a folder, not a model file', 'model files are single JSON files; rename the folder or move it out of the inventory'), hash: null };
+  if (!info.isFile()) return { diagnostic: fileDiagnostic(shown, 'is not a regular file'), hash: null };
   if (info.size > MAX_FILE_BYTES) {
-    return { diagnostic: fileDiagnostic(shown, `file is ${(info.size / 1048576).toFixed(1)} MB; model files may be at most 5 MB`, 'a model file describes one unit cell and its drive; large data belongs elsewhere') };
+    return {
+      diagnostic: fileDiagnostic(shown, `file is ${(info.size / 1048576).toFixed(1)} MB; model files may be at most 5 MB`, 'a model file describes one unit cell and its drive; large data belongs elsewhere'),
+      hash: null,
+    };
   }
   let bytes: Buffer;
   try {
     bytes = await readFile(file);
   } catch (error) {
-    return { diagnostic: fileDiagnostic(shown, `cannot read file: ${(error as NodeJS.ErrnoException).code ?? (error as Error).message}`) };
+    return { diagnostic: fileDiagnostic(shown, `cannot read file: ${(error as NodeJS.ErrnoException).code ?? (error as Error).message}`), hash: null };
   }
+  const hash = sourceHash(bytes);
   const bad = firstInvalidUtf8(bytes);
   if (bad >= 0) {
     const before = new TextDecoder('utf-8').decode(bytes.subarray(0, bad));
     const lines = before.split('\n');
     return {
       diagnostic: fileDiagnostic(shown, `file is not valid UTF-8 (byte 0x${bytes[bad].toString(16).padStart(2, '0')} at offset ${bad})`, 'save the file as UTF-8', lines.length, lines[lines.length - 1].length + 1),
+      hash,
     };
   }
-  return { text: new TextDecoder('utf-8').decode(bytes) };
+  return { text: new TextDecoder('utf-8').decode(bytes), hash };
 }
 
 function locate(file: string, doc: PositionedDocument, issue: Issue): Diagnostic {
@@ -129,6 +105,31 @@ function locate(file: string, doc: PositionedDocument, issue: Issue): Diagnostic
   const d: Diagnostic = { file, line, column, pointer: issue.pointer, message: issue.message, severity: issue.severity ?? 'error' };
   if (issue.hint !== undefined) d.hint = issue.hint;
   return d;
+}
+
+/** Deepest nesting of objects and lists a model file may have (the deepest real one is below 10); the parsers recurse. */
+export const MAX_JSON_DEPTH = 100;
+
+/** Offset of the bracket that nests deeper than MAX_JSON_DEPTH, or -1; strings are skipped. */
+function tooDeep(text: string): number {
+  let depth = 0;
+  let inString = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (inString) {
+      if (c === 92) i++; // backslash: skip the escaped character
+      else if (c === 34) inString = false;
+    } else if (c === 34) inString = true;
+    else if (c === 91 || c === 123) {
+      if (++depth > MAX_JSON_DEPTH) return i;
+    } else if (c === 93 || c === 125) depth--;
+  }
+  return -1;
+}
+
+/** A located diagnostic for a problem found after loading (the source is parsed again for positions). */
+export function diagnosticFor(file: string, source: string, issue: Issue): Diagnostic {
+  return locate(file, parseWithPositions(source).document, issue);
 }
 
 /**
@@ -139,6 +140,11 @@ export function checkModelSource(file: string, source: string): { model?: Loaded
   // A byte-order mark is not JSON; blank it so offsets stay aligned.
   const text = source.charCodeAt(0) === 0xfeff ? ' ' + source.slice(1) : source;
   if (text.trim() === '') return { diagnostics: [fileDiagnostic(file, 'file is empty', 'run "strobe new <id>" for a minimal model to start from')] };
+  const deep = tooDeep(text);
+  if (deep >= 0) {
+    const lines = text.slice(0, deep).split('\n');
+    return { diagnostics: [fileDiagnostic(file, `objects and lists nest more than ${MAX_JSON_DEPTH} levels deep here`, 'a model file is a shallow document; this looks generated by mistake', lines.length, lines[lines.length - 1].length + 1)] };
+  }
   const { document: positioned, problems } = parseWithPositions(text);
   if (problems.length > 0) {
     return {
@@ -157,7 +163,10 @@ export function checkModelSource(file: string, source: string): { model?: Loaded
     return { diagnostics: [locate(file, positioned, { pointer: '', message: `a model file holds one JSON object; found ${found}` })] };
   }
   const issues: Issue[] = [...duplicateProperties(positioned), ...validateDocument(value)];
-  const expectedId = path.basename(file, '.json');
+  const description = (value as { description?: unknown }).description;
+  if (typeof description === 'string') issues.push(...checkDescription(description, '/description', positioned));
+  const base = path.posix.basename(file);
+  const expectedId = base.endsWith('.json') ? base.slice(0, -'.json'.length) : base;
   let parameters: Record<string, number> = {};
   if (issues.length === 0) {
     const doc = value as ModelDocument;
@@ -172,40 +181,57 @@ export function checkModelSource(file: string, source: string): { model?: Loaded
       }
     }
     if (doc.id !== expectedId) {
-      issues.push({ pointer: '/id', message: `id "${doc.id}" does not match the file name "${expectedId}.json"`, hint: `rename the file to ${doc.id}.json or set "id": "${expectedId}"` });
+      const rename = `rename the file to ${doc.id}.json`;
+      issues.push({ pointer: '/id', message: `id "${doc.id}" does not match the file name "${base}"`, hint: isModelId(expectedId) ? `${rename} or set "id": "${expectedId}"` : rename });
     }
     parameters = Object.fromEntries(table.values);
   }
   const diagnostics = sortDiagnostics(issues.map((i) => locate(file, positioned, i)));
   if (hasErrors(diagnostics)) return { diagnostics };
   const document = value as ModelDocument;
-  return { model: { id: document.id, file, source, document, parameters, warnings: diagnostics }, diagnostics };
+  return { model: { id: document.id, file, source, document, parameters, warnings: diagnostics, sourceHash: sourceHash(source) }, diagnostics };
 }
 
-/** Loads every model file under the given files or folders (default: models/). Never throws for bad input. */
+/** The id a file that did not load claims for itself, when it names a valid one. */
+function claimedId(text: string): string | undefined {
+  const match = /"id"\s*:\s*"([a-z0-9-]{1,64})"/.exec(text);
+  return match && isModelId(match[1]) ? match[1] : undefined;
+}
+
+/**
+ * Loads every model file under the given files or folders (default: models/).
+ * A file named twice (directly, or also through its folder) is loaded once.
+ * Never throws for bad input.
+ */
 export async function loadModels(paths: string[] = ['models']): Promise<LoadReport> {
   const report: LoadReport = { models: [], failures: [] };
-  const files = await expand(paths.length > 0 ? paths : ['models'], report.failures);
+  const { files, missing } = listInventory(paths.length > 0 ? paths : ['models']);
+  for (const m of missing) {
+    const hint = m.message === 'no such file or folder' ? 'check the path; model files live in models/ by default' : undefined;
+    report.failures.push({ file: m.path, diagnostics: [fileDiagnostic(m.path, m.message, hint)], sourceHash: null });
+  }
   const seen = new Map<string, string>();
-  for (const file of files) {
-    const shown = displayPath(file);
+  for (const { absolute, path: shown } of files) {
+    let hash: string | null = null;
     try {
-      const read = await readModelFile(file, shown);
+      const read = await readModelFile(absolute, shown);
+      hash = read.hash;
       if ('diagnostic' in read) {
-        report.failures.push({ file: shown, diagnostics: [read.diagnostic] });
+        report.failures.push({ file: shown, diagnostics: [read.diagnostic], sourceHash: read.hash });
         continue;
       }
       const { model, diagnostics } = checkModelSource(shown, read.text);
       if (!model) {
-        const idMatch = /"id"\s*:\s*"([a-z0-9-]{1,64})"/.exec(read.text);
-        report.failures.push(idMatch ? { file: shown, id: idMatch[1], diagnostics } : { file: shown, diagnostics });
+        const id = claimedId(read.text);
+        report.failures.push(id ? { file: shown, id, diagnostics, sourceHash: read.hash } : { file: shown, diagnostics, sourceHash: read.hash });
         continue;
       }
+      model.sourceHash = read.hash;
       const previous = seen.get(model.id);
       if (previous !== undefined) {
         const { document: positioned } = parseWithPositions(read.text);
         const d = locate(shown, positioned, { pointer: '/id', message: `id "${model.id}" is already used by ${previous}`, hint: 'ids must be unique across the inventory' });
-        report.failures.push({ file: shown, id: model.id, diagnostics: [d] });
+        report.failures.push({ file: shown, id: model.id, diagnostics: [d], sourceHash: read.hash });
         continue;
       }
       seen.set(model.id, shown);
@@ -214,6 +240,7 @@ export async function loadModels(paths: string[] = ['models']): Promise<LoadRepo
       report.failures.push({
         file: shown,
         diagnostics: [fileDiagnostic(shown, `internal error while checking this file: ${(error as Error).message}`, 'this is a bug in Strobe Atlas; please report it with the file attached')],
+        sourceHash: hash,
       });
     }
   }

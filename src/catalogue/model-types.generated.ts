@@ -104,6 +104,10 @@ export interface ModelDocument {
   maintainers: ProvenanceMaintainers;
   references?: ProvenanceReferences;
   dates: EntryDates;
+  /**
+   * true while the entry is a draft: strobe check verifies it, but the site does not publish it. Remove the field (or set false) to publish.
+   */
+  draft?: boolean;
   lattice: Lattice;
   parameters?: Parameters;
   drive: Drive;
@@ -463,7 +467,7 @@ export interface BandClaims {
   note?: Note;
 }
 /**
- * Starting grids and tolerances for verification. Grids are starting points: refinement continues until tolerances are met or limits are reached.
+ * Starting grids, evaluation budgets and tolerances for verification. Grids are starting points: refinement continues until tolerances are met or a budget is spent.
  */
 export interface NumericsHints {
   /**
@@ -478,6 +482,18 @@ export interface NumericsHints {
    */
   timeSlices?: number;
   ribbon?: RibbonHints;
+  /**
+   * Seconds this model may take to verify (default 600, at most 3600). The estimated work is held to it before anything is computed, and verification stops when it is reached. strobe check --time-limit replaces it for every model.
+   */
+  timeLimit?: number;
+  /**
+   * 2D: most evaluations of the winding density (momenta, each integrated over the period) the adaptive quadrature of all gap winding numbers may spend together. Default 400000.
+   */
+  windingEvaluations?: number;
+  /**
+   * Most Floquet operators the certified lower bound of each gap's minimal direct gap may evaluate beyond the band grid, for sheets and chains. Default 20000.
+   */
+  gapEvaluations?: number;
   /**
    * Cells in the open chain used for end modes (1D). Default: 10 bulk decay lengths, at most 160.
    */
@@ -506,11 +522,11 @@ export interface RibbonHints {
  */
 export interface Tolerances {
   /**
-   * Largest accepted distance of a computed invariant from the nearest integer, for every invariant (Chern numbers, gap winding numbers, chain windings, Z2 indices). At most 0.1: near 0.5 the residual test would accept any number. Defaults: 1e-6 for Chern numbers and chain windings, 1e-3 for gap winding numbers, 0.01 for Z2 indices.
+   * Largest accepted distance of a computed invariant from the nearest integer, for every invariant (Chern numbers, gap winding numbers, chain windings, Z2 indices); for gap winding numbers also the largest accepted quadrature error estimate. At most 0.1: near 0.5 the residual test would accept any number. Defaults: 1e-6 for Chern numbers, gap winding numbers and chain windings, 0.01 for Z2 indices.
    */
   integer?: number;
   /**
-   * Smallest direct gap (units of pi/T) for a gap to count as open, for sheets and chains. Default 0.001; verdicts never accept a gap below the policy floor (0.001) or the grid-dependent tolerance.
+   * Gap tolerance (units of pi/T): a gap counts as open when the certified lower bound of its minimal direct gap exceeds it, for sheets and chains. Default 0.001; hard lower limit 1e-5 (ten times the distance below which a winding number counts as undefined).
    */
   gap?: number;
   /**

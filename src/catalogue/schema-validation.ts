@@ -79,11 +79,30 @@ function describeBranch(branch: SchemaNode): string {
   return expectedTypes(resolved.type);
 }
 
-/** First sentence of a schema description, for hints. */
-function firstSentence(text: unknown): string | undefined {
+/** Words after which a full stop does not end a sentence: abbreviations and initials ("R. Okafor"). */
+const ABBREVIATION_BEFORE_STOP = /(?:^|[\s("])(?:e\.g|i\.e|cf|vs|etc|approx|[A-Za-z])$/;
+
+/**
+ * First sentence of a schema description, for hints. A full stop ends it only
+ * when followed by a capital letter (or the end), outside quotes and
+ * parentheses, and not after an abbreviation or an initial, so that examples
+ * such as e.g. "R. Okafor (Lantern Lab)" are never cut in the middle.
+ */
+export function firstSentence(text: unknown): string | undefined {
   if (typeof text !== 'string') return undefined;
-  const m = /^(.*?)[.](?:\s+(?=[A-Z])|$)/.exec(text);
-  return m ? m[1] : text;
+  let quoted = false;
+  let depth = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i];
+    if (c === '"') quoted = !quoted;
+    else if (c === '(') depth++;
+    else if (c === ')') depth = Math.max(0, depth - 1);
+    else if (c === '.' && !quoted && depth === 0) {
+      const rest = text.slice(i + 1);
+      if ((rest === '' || /^\s+[A-Z]/.test(rest)) && !ABBREVIATION_BEFORE_STOP.test(text.slice(0, i))) return text.slice(0, i);
+    }
+  }
+  return text;
 }
 
 /**

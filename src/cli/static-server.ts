@@ -1,7 +1,10 @@
 /**
  * A minimal static file server for the built site (dist/), bound to 127.0.0.1.
  * Used by `strobe site --serve` and by the browser tests; it serves files only
- * from inside the root folder and never lists directories.
+ * from inside the root folder, never lists directories, answers only GET and
+ * HEAD (405 with Allow otherwise), and sends headers that keep a browser from
+ * guessing content types (nosniff) or running anything the site did not ship
+ * as a file of its own (a Content-Security-Policy without inline scripts).
  */
 import { createServer, type Server } from 'node:http';
 import { readFile, stat } from 'node:fs/promises';
@@ -21,6 +24,30 @@ const CONTENT_TYPES: Record<string, string> = {
   '.ttf': 'font/ttf',
   '.txt': 'text/plain; charset=utf-8',
   '.xml': 'application/xml; charset=utf-8',
+};
+
+/**
+ * The pages need: their own scripts and styles, KaTeX's fonts, data: images
+ * (none today, harmless), fetches of their own JSON. Style attributes stay
+ * allowed because KaTeX positions every glyph with inline styles; scripts may
+ * come only from files of the site itself.
+ */
+export const CONTENT_SECURITY_POLICY = [
+  "default-src 'none'",
+  "script-src 'self'",
+  "style-src 'self' 'unsafe-inline'",
+  "img-src 'self' data:",
+  "font-src 'self'",
+  "connect-src 'self'",
+  "base-uri 'none'",
+  "form-action 'self'",
+  "frame-ancestors 'none'",
+].join('; ');
+
+export const SECURITY_HEADERS: Record<string, string> = {
+  'x-content-type-options': 'nosniff',
+  'content-security-policy': CONTENT_SECURITY_POLICY,
+  'referrer-policy': 'no-referrer',
 };
 
 export interface RunningServer {
@@ -58,16 +85,23 @@ async function findFile(path: string): Promise<string | null> {
 
 export function serveStatic(root: string, port = 0, host = '127.0.0.1'): Promise<RunningServer> {
   const server: Server = createServer(async (request, response) => {
+    if (request.method !== 'GET' && request.method !== 'HEAD') {
+      response.writeHead(405, { ...SECURITY_HEADERS, allow: 'GET, HEAD', 'content-type': 'text/plain; charset=utf-8' });
+      response.end('Method not allowed: this server only reads files.\n');
+      return;
+    }
+    const head = request.method === 'HEAD';
     const path = resolveRequestPath(root, request.url ?? '/');
     const file = path === null ? null : await findFile(path);
     if (file === null) {
       const notFound = await findFile(join(resolve(root), '404.html'));
-      response.writeHead(404, { 'content-type': CONTENT_TYPES['.html'] });
-      response.end(notFound ? await readFile(notFound) : 'Not found');
+      response.writeHead(404, { ...SECURITY_HEADERS, 'content-type': CONTENT_TYPES['.html'] });
+      response.end(head ? undefined : notFound ? await readFile(notFound) : 'Not found');
       return;
     }
-    response.writeHead(200, { 'content-type': CONTENT_TYPES[extname(file)] ?? 'application/octet-stream' });
-    response.end(await readFile(file));
+    const body = await readFile(file);
+    response.writeHead(200, { ...SECURITY_HEADERS, 'content-type': CONTENT_TYPES[extname(file)] ?? 'application/octet-stream', 'content-length': body.length });
+    response.end(head ? undefined : body);
   });
   return new Promise((resolvePromise, reject) => {
     server.once('error', reject);
@@ -80,5 +114,19 @@ export function serveStatic(root: string, port = 0, host = '127.0.0.1'): Promise
         close: () => new Promise((done) => server.close(() => done())),
       });
     });
+  });
+}
+
+/** Why a server could not listen on port and host right now ("port 4321 on 127.0.0.1 is already in use"), or null when it could. */
+export function portProblem(port: number, host: string): Promise<string | null> {
+  return new Promise((resolvePromise) => {
+    const probe = createServer();
+    probe.once('error', (error: NodeJS.ErrnoException) => {
+      if (error.code === 'EADDRINUSE') resolvePromise(`port ${port} on ${host} is already in use`);
+      else if (error.code === 'EACCES') resolvePromise(`port ${port} on ${host} needs privileges this user does not have`);
+      else if (error.code === 'EADDRNOTAVAIL' || error.code === 'ENOTFOUND') resolvePromise(`${host} is not an address of this machine`);
+      else resolvePromise(`cannot listen on ${host}:${port}: ${error.message}`);
+    });
+    probe.listen(port, host, () => probe.close(() => resolvePromise(null)));
   });
 }

@@ -5,9 +5,11 @@
 
 /** One step of a refinement: the grid used and the value obtained on it. */
 export interface RefinementStep {
-  /** Grid sizes, e.g. [n1, n2] for a k grid or [n1, n2, nt] with time slices. */
+  /** Grid sizes, e.g. [n1, n2] for a k grid or [n1, n2, nt] with time slices; [evaluations] for adaptive quadrature. */
   grid: number[];
   value: number;
+  /** What the step was, when a grid does not say it ("12 150 evaluations, 54 cells"). */
+  label?: string;
 }
 
 /** A quantity that should be an integer (Chern number, winding number, edge count, Z₂ index). */

@@ -7,6 +7,28 @@
  * together with their users.
  */
 import type { IntegerEstimate } from './certificates.ts';
+import type { SymmetryClassReport } from './symmetry/altland-zirnbauer.ts';
+
+/**
+ * The certified lower bound of a minimal direct gap (certified-minimum.ts): the
+ * true minimum over the zone lies in [lower, minimalGap], up to the stated
+ * evaluation margin, when `status` is 'above' or 'below'.
+ */
+export interface GapCertificate {
+  /** Lower bound on the minimal direct gap over the whole zone (units π/T; 0 when none could be shown). */
+  lower: number;
+  /** 'above': lower > decisionLevel (open); 'below': a sample at or below it; 'undecided': the evaluation budget ran out in between. */
+  status: 'above' | 'below' | 'undecided';
+  /** Floquet operators evaluated by the bound, and cells examined (coarse grid included). */
+  evaluations: number;
+  cells: number;
+  /** Lipschitz constants of the direct gap per direction (units π/T per unit of reduced momentum), from the drive's terms. */
+  lipschitz: number[];
+  /** Error allowed for one evaluation (twice the time-integration bound, units π/T). */
+  margin: number;
+  /** The gap tolerance the bound was decided against (units π/T). */
+  decisionLevel: number;
+}
 
 /** A quasienergy gap: an arc of the quasienergy circle containing no bulk state on the grid. */
 export interface GapReport {
@@ -18,10 +40,12 @@ export interface GapReport {
   /** Smallest direct gap over the k grid (units π/T) and where it occurs (reduced momenta). */
   minimalGap: number;
   momentumAtMinimum: number[];
-  /** Whether the gap counts as open: minimalGap above the gap tolerance. */
+  /** Whether the gap counts as open: the certified lower bound of the minimal direct gap exceeds the gap tolerance. */
   open: boolean;
   /** Width of the arc free of states on the k grid (the indirect gap, units π/T); minimalGap ≥ arcWidth. */
   arcWidth: number;
+  /** The certified lower bound behind `open` (absent from hand-made reports). */
+  certified?: GapCertificate;
 }
 
 /** A Chern number with the evidence of its Fukui–Hatsugai–Suzuki lattice computation. */
@@ -53,11 +77,32 @@ export interface BandGroupReport {
   chern?: ChernEstimate;
 }
 
+/** How a gap winding number was integrated (sheet/winding/gap-winding.ts). */
+export interface WindingQuadrature {
+  /** Winding densities evaluated (momenta, each integrated over the time loop), time-rule checks included. */
+  evaluations: number;
+  /** Cells of the final adaptive mesh, and of the graded first mesh. */
+  cells: number;
+  meshCells: number;
+  /** Summed |Kronrod − Gauss| estimate of the momentum quadrature (units of W). */
+  errorEstimate: number;
+  /** The value before rounding. */
+  raw: number;
+  /** Gauss–Legendre nodes over the whole loop, and the largest relative change of the density when one more node per piece was added. */
+  timeNodes: number;
+  timeRuleChange: number;
+  /** Smallest distance from the cut to the spectrum met by the mesh (units π/T), and where. */
+  minimalDistance: number;
+  momentumAtMinimum: [number, number];
+}
+
 export interface WindingReport {
   /** Gap label (units π/T). */
   gap: number;
   /** Rudner–Lindner–Berg–Levin winding number W[U_ε]. */
   winding: IntegerEstimate;
+  /** Present when the integral was computed (the gap open at the cut). */
+  quadrature?: WindingQuadrature;
 }
 
 /** A crossing of a gap by an edge-localised ribbon state. */
@@ -129,6 +174,10 @@ export interface SheetPortrait {
   eigenResidual: number;
   /** Number of Floquet operators evaluated for the bulk (bands, refinement, Chern grids). */
   floquetEvaluations: number;
+  /** Declared symmetries with residuals (empty when none is declared). */
+  symmetries: SymmetryReport[];
+  /** The Altland–Zirnbauer class the declared operators define. */
+  symmetryClass: SymmetryClassReport;
   /** Wall time per stage in milliseconds. */
   timings: Record<string, number>;
 }
@@ -151,14 +200,16 @@ export interface ChainGapReport {
   /** Distance from the label to the nearest bulk quasienergy over k (units π/T), and where. */
   clearance: number;
   clearanceMomentum: number;
-  /** clearance > gapTolerance. */
+  /** clearance > gapTolerance and the certified lower bound of the minimal direct gap above the gap tolerance. */
   open: boolean;
   /** Decay length estimate v_max / clearance of end states (cells; Infinity when closed). */
   decayLengthEstimate: number;
+  /** The certified lower bound of the minimal direct gap; `open` also needs it above the tolerance. */
+  certified?: GapCertificate;
 }
 
-/** A declared symmetry and how well the drive satisfies it. */
-export interface ChainSymmetryReport {
+/** A declared symmetry and how well the drive satisfies it (chains and sheets). */
+export interface SymmetryReport {
   symmetry: 'chiral' | 'particle-hole' | 'time-reversal';
   /** Relative residual of the Hamiltonian relation, ‖…‖_F / max(1, ‖H‖_F), max over checked times and momenta. */
   hamiltonianResidual: number;
@@ -170,6 +221,8 @@ export interface ChainSymmetryReport {
   /** False: the symmetry is broken ("symmetry broken" for any claim resting on it). */
   holds: boolean;
 }
+
+export type ChainSymmetryReport = SymmetryReport;
 
 /** The winding of one symmetric time frame. */
 export interface ChainFrameReport {
@@ -186,18 +239,35 @@ export interface ChainFrameReport {
   floquetResidual: number;
 }
 
-/** Chiral invariants (AIII, BDI): ν₀ = (ν′ + ν″)/2, ν_π = (ν′ − ν″)/2 (Asbóth & Obuse 2013). */
+/** ν₀ and ν_π from the half-period evolution F = U(t₀ + T/2, t₀) of the first frame (chain/half-period-winding.ts). */
+export interface ChainHalfPeriodReport {
+  frameTime: number;
+  /** Winding of det c (Γ = −1 rows, +1 columns of F): needs only the gap at 0 open. */
+  zero: IntegerEstimate;
+  /** Winding of det a (Γ = +1 block of F): needs only the gap at π/T open. */
+  pi: IntegerEstimate;
+  /** min |det| / max |det| of each block over the loop: small where that gap nearly closes. */
+  zeroModulusRatio: number;
+  piModulusRatio: number;
+}
+
+/** Chiral invariants (AIII, BDI): ν₀ = (ν′ + ν″)/2, ν_π = (ν′ − ν″)/2 (Asbóth & Obuse 2013), and the half-period invariants. */
 export interface ChainChiralReport {
-  /** 'computed', or why not: no symmetric time frame, or Γ with unequal ±1 eigenspaces. */
-  status: 'computed' | 'no-symmetric-frame' | 'unbalanced-chiral-operator';
+  /** 'computed', or why not: no symmetric time frame, Γ with unequal ±1 eigenspaces, or a declared first frame that is not symmetric. */
+  status: 'computed' | 'no-symmetric-frame' | 'unbalanced-chiral-operator' | 'declared-frame-not-symmetric';
   /** Where Γ comes from: declared, or built as U_T U_C* from time reversal and particle–hole. */
   source: 'declared' | 'time-reversal × particle-hole';
+  /** Whether the frames are the model's symmetricTimes (first listed defines ν′) or found by the engine. */
+  frameSource: 'declared' | 'found';
+  /** Which frames were used, in words. */
+  frameNotes: string[];
   frames: ChainFrameReport[];
   /** Residual of the best candidate frame and its tolerance (also when none was found). */
   frameResidual: number;
   frameTolerance: number;
   zero?: IntegerEstimate;
   pi?: IntegerEstimate;
+  halfPeriod?: ChainHalfPeriodReport;
   reason?: string;
 }
 
@@ -260,6 +330,8 @@ export interface ChainPortrait {
   velocity: number;
   /** Declared symmetries with residuals. */
   symmetries: ChainSymmetryReport[];
+  /** The Altland–Zirnbauer class the declared operators define. */
+  symmetryClass: SymmetryClassReport;
   /** Present when a chiral operator is declared or derivable (time reversal and particle–hole both declared). */
   chiral?: ChainChiralReport;
   /** Present when particle–hole symmetry is declared. */

@@ -1,49 +1,6 @@
 /**
- * Renders the untrusted Markdown of a model description to safe HTML.
- *
- * Pipeline: Markdown → mdast (remark, with remark-math for $…$ and $$…$$)
- * → hast (remark-rehype, raw HTML in the source is dropped, never passed through)
- * → sanitised with rehype-sanitize (GitHub-style allow list, plus the two math
- * classes) → math typeset by KaTeX on the server (rehype-katex) → HTML.
- * Sanitising happens before KaTeX, so only KaTeX's own output is trusted.
+ * Markdown for pages: the renderer lives in the catalogue (description/render.ts)
+ * so that `strobe check` refuses exactly what a page could not show; pages
+ * import it from here.
  */
-import { remark } from 'remark';
-import remarkMath from 'remark-math';
-import remarkRehype from 'remark-rehype';
-import rehypeSanitize, { defaultSchema, type Options as SanitizeSchema } from 'rehype-sanitize';
-import rehypeKatex from 'rehype-katex';
-import rehypeStringify from 'rehype-stringify';
-
-const sanitizeSchema: SanitizeSchema = {
-  ...defaultSchema,
-  attributes: {
-    ...defaultSchema.attributes,
-    code: [['className', /^language-./, 'math-inline', 'math-display']],
-  },
-};
-
-const processor = remark()
-  .use(remarkMath)
-  .use(remarkRehype)
-  .use(rehypeSanitize, sanitizeSchema)
-  .use(rehypeKatex, { strict: 'ignore' })
-  .use(rehypeStringify);
-
-/** Markdown (untrusted) → sanitised HTML with server-rendered math. Never throws for bad input. */
-export function renderMarkdown(markdown: string): string {
-  try {
-    return String(processor.processSync(markdown));
-  } catch (error) {
-    const message = error instanceof Error ? error.message : String(error);
-    return `<p class="render-error">This description could not be rendered: ${escapeHtml(message)}</p>`;
-  }
-}
-
-export function escapeHtml(text: string): string {
-  return text
-    .replaceAll('&', '&amp;')
-    .replaceAll('<', '&lt;')
-    .replaceAll('>', '&gt;')
-    .replaceAll('"', '&quot;')
-    .replaceAll("'", '&#39;');
-}
+export { DESCRIPTION_LIMITS, DOCUMENT_LIMITS, escapeHtml, katexOptions, renderDescription, renderMarkdown, sanitizeSchema } from '../catalogue/description/render.ts';

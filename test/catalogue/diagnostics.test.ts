@@ -32,6 +32,6 @@ describe('edit distance', () => {
 describe('formatDiagnostic', () => {
   it('prints file:line:column, pointer, message and hint', () => {
     expect(formatDiagnostic({ file: 'models/a.json', line: 3, column: 7, pointer: '/id', message: 'bad id', hint: 'fix it', severity: 'error' })).toBe('models/a.json:3:7  /id  bad id  (fix it)');
-    expect(formatDiagnostic({ file: 'a.json', line: 1, column: 1, pointer: '', message: 'unused', severity: 'warning' })).toBe('a.json:1:1  (document)  warning: unused');
+    expect(formatDiagnostic({ file: 'a.json', line: 1, column: 1, pointer: '', message: 'unused', severity: 'warning' })).toBe('warning: a.json:1:1  (document)  unused');
   });
 });

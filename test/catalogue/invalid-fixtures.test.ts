@@ -37,6 +37,8 @@ const cases: Record<string, Case> = {
   'durations-sum': { pointer: '/drive/segments', anchor: '[\n      {\n        "duration"', message: 'segment durations sum to 0.9 but the period is 1 (tolerance 1e-9·T)' },
   empty: { pointer: '', message: 'file is empty', hint: 'run "strobe new <id>" for a minimal model to start from' },
   'folder-named': { pointer: '', message: 'is a folder, not a model file' },
+  // The hard lower limit of the gap tolerance (docs/model-format.md, policy.ts GAP_TOLERANCE_LIMIT).
+  'gap-tolerance-below-limit': { pointer: '/numerics/tolerances/gap', anchor: '0.000001', message: 'must be ≥ 0.00001; found 0.000001' },
   'gap-label-range': { pointer: '/claims/gaps/0/quasienergy', anchor: '2,\n        "invariant"', message: 'gap label 2 is outside (−1, 1] (units of π/T)' },
   'id-mismatch': { pointer: '/id', anchor: '"some-other-model"', message: 'id "some-other-model" does not match the file name "id-mismatch.json"', hint: 'rename the file to some-other-model.json or set "id": "id-mismatch"' },
   'id-not-kebab': { pointer: '/id', anchor: '"Id_Not_Kebab"', message: '"Id_Not_Kebab" is not in the expected form', hint: 'Kebab-case identifier equal to the file name without .json' },

@@ -5,15 +5,10 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.ts';
 import { checkModelSource } from '../../src/catalogue/load.ts';
+import { runStrobe } from '../support/run-cli.ts';
 
-async function run(argv: string[], cwd = process.cwd()) {
-  let stdout = '';
-  let stderr = '';
-  const code = await main(argv, { stdout: (t) => void (stdout += t), stderr: (t) => void (stderr += t), cwd });
-  return { code, stdout, stderr };
-}
+const run = runStrobe;
 
 describe('strobe check --validate-only', () => {
   it('exits 0 and prints one ✓ line per model and a total for models/', async () => {
@@ -84,6 +79,9 @@ describe('strobe new', () => {
     const { model, diagnostics } = checkModelSource('models/driven-ladder.json', readFileSync(file, 'utf8'));
     expect(diagnostics).toEqual([]);
     expect(model?.id).toBe('driven-ladder');
+    // A new file is a draft: verified like any model, left out of the site until the author publishes it.
+    expect(model?.document.draft).toBe(true);
+    expect(first.stdout).toMatch(/a draft: not published on the site until you remove "draft": true/);
     writeFileSync(file, '{"edited": true}');
     const second = await run(['new', 'driven-ladder'], dir);
     expect(second.code).toBe(1);

@@ -8,13 +8,13 @@ import { join } from 'node:path';
 import { request } from 'node:http';
 import { resolveRequestPath, serveStatic, type RunningServer } from '../../src/cli/static-server.ts';
 
-function get(url: string, rawPath: string): Promise<{ status: number; body: string; type: string }> {
+function get(url: string, rawPath: string, method = 'GET'): Promise<{ status: number; body: string; type: string; headers: Record<string, unknown> }> {
   const { hostname, port } = new URL(url);
   return new Promise((resolve, reject) => {
-    const req = request({ hostname, port, path: rawPath, method: 'GET' }, (res) => {
+    const req = request({ hostname, port, path: rawPath, method }, (res) => {
       let body = '';
       res.on('data', (chunk) => (body += chunk));
-      res.on('end', () => resolve({ status: res.statusCode ?? 0, body, type: String(res.headers['content-type'] ?? '') }));
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, body, type: String(res.headers['content-type'] ?? ''), headers: res.headers }));
     });
     req.on('error', reject);
     req.end();
@@ -58,5 +58,28 @@ describe('static server', () => {
     expect(resolveRequestPath(root, '/models/a/')).toBe(join(root, 'models', 'a') + '/');
     expect(resolveRequestPath(root, '/%2e%2e/%2e%2e/etc/passwd')).toBeNull();
     expect(resolveRequestPath(root, '/%E0%A4%A')).toBeNull();
+  });
+
+  it('answers only GET and HEAD: other methods get 405 with Allow, and change nothing', async () => {
+    for (const method of ['POST', 'PUT', 'DELETE', 'PATCH']) {
+      const response = await get(server.url, '/index.html', method);
+      expect(response.status, method).toBe(405);
+      expect(response.headers.allow).toBe('GET, HEAD');
+    }
+    const head = await get(server.url, '/index.html', 'HEAD');
+    expect(head).toMatchObject({ status: 200, body: '' });
+    expect(head.headers['content-length']).toBe(String('<p>home</p>'.length));
+    expect((await get(server.url, '/index.html')).body).toBe('<p>home</p>');
+  });
+
+  it('sends nosniff and a Content-Security-Policy that allows scripts from the site only', async () => {
+    for (const path of ['/', '/nope']) {
+      const { headers } = await get(server.url, path);
+      expect(headers['x-content-type-options']).toBe('nosniff');
+      const csp = String(headers['content-security-policy']);
+      expect(csp).toContain("script-src 'self'");
+      expect(csp).toContain("default-src 'none'");
+      expect(csp).not.toMatch(/script-src[^;]*unsafe-inline/);
+    }
   });
 });

@@ -18,7 +18,8 @@ export const RECORD_FORMAT = 1;
  * unsettled: none contradicted, at least one unsettled;
  * portrait-only: the file makes no claims; the computed portrait is all there is;
  * invalid: the file did not load or compile (see diagnostics);
- * failed: the computation did not finish (timed out, crashed or raised an error).
+ * failed: the computation did not finish: refused because its estimated cost
+ *   exceeds the model's limits, timed out, crashed or raised an error.
  */
 export type ModelStatus = 'verified' | 'disputed' | 'unsettled' | 'portrait-only' | 'invalid' | 'failed';
 
@@ -37,8 +38,10 @@ export interface GapRecord {
   lower: number;
   upper: number;
   minimalGap: number;
+  /** Certified lower bound on the minimal direct gap over the zone (units π/T). */
+  lowerBound: number;
   at: number[];
-  /** The tolerance the gap had to exceed (policy.ts) and the verdict on it. */
+  /** The tolerance the lower bound had to exceed (policy.ts) and the verdict on it. */
   tolerance: number;
   open: boolean;
 }
@@ -98,11 +101,26 @@ export interface SweepPoint {
   error: string | null;
 }
 
+/** The limits a model was verified under and the cost estimated for it before computing (budget/). */
+export interface BudgetRecord {
+  timeLimitSeconds: number;
+  timeLimitSource: 'default' | 'model file' | 'command line';
+  memoryLimitBytes: number;
+  estimate: {
+    seconds: number;
+    memoryBytes: number;
+    stages: { stage: string; seconds: number; memoryBytes: number; detail: string }[];
+  };
+}
+
 export interface ModelRecord {
   recordFormat: number;
   engine: { version: string; numericsHash: string };
   id: string;
+  /** Model file, relative to the inventory (inventory.ts), '/'-separated. */
   file: string;
+  /** sha256 of the file's bytes when it was checked ("sha256:…"), null when it was not read. */
+  sourceHash: string | null;
   status: ModelStatus;
   statusReason: string;
   model: {
@@ -115,6 +133,8 @@ export interface ModelRecord {
     dates: { created: string; updated: string | null };
     dimension: number | null;
     symmetryClass: string | null;
+    /** Marked "draft": true in the file: verified, but not published on the site. */
+    draft: boolean;
   } | null;
   parameters: { name: string; value: number | null; expression: string | null; description: string | null }[];
   drive: {
@@ -132,8 +152,12 @@ export interface ModelRecord {
   anomalous: { classification: AnomalousClass; reason: string; definition: string };
   sweeps: SweepRecord[];
   diagnostics: RecordDiagnostic[];
-  incident: { kind: 'timed-out' | 'crashed' | 'error'; message: string } | null;
+  incident: { kind: IncidentKind; message: string } | null;
+  /** Limits and cost estimate; null for a model that did not load. */
+  budget: BudgetRecord | null;
 }
+
+export type IncidentKind = 'over-budget' | 'timed-out' | 'crashed' | 'error';
 
 /** Machine-dependent facts kept out of the records (timings.json). */
 export interface ModelTimings {
@@ -161,6 +185,7 @@ export interface CatalogueSummary {
     statusReason: string;
     anomalous: AnomalousClass;
     claims: { confirmed: number; contradicted: number; unsettled: number };
+    draft: boolean;
   }[];
 }
 

@@ -4,7 +4,7 @@ import type { SheetPortrait } from '../../numerics/portrait.ts';
 import type { Diagnostic } from '../diagnostics.ts';
 import type { LoadedModel } from '../load.ts';
 import type { ModelDocument } from '../model-types.generated.ts';
-import type { AnalysisRecord, ModelRecord, RecordDiagnostic, SpectrumRecord } from './model-record.ts';
+import type { AnalysisRecord, IncidentKind, ModelRecord, RecordDiagnostic, SpectrumRecord } from './model-record.ts';
 import { RECORD_FORMAT } from './model-record.ts';
 import { compareCodePoints } from './canonical-json.ts';
 import { decimateRows, roundRows, roundTo, strideFor } from './decimate.ts';
@@ -33,6 +33,7 @@ export function modelMetadata(doc: ModelDocument): NonNullable<ModelRecord['mode
     dates: { created: doc.dates.created, updated: doc.dates.updated ?? null },
     dimension: doc.lattice?.dimension ?? null,
     symmetryClass: doc.claims?.symmetryClass ?? null,
+    draft: doc.draft === true,
   };
 }
 
@@ -105,7 +106,7 @@ export function chainAnalysis(view: ChainView, policy: VerdictPolicy): AnalysisR
     bandPath: null,
     gaps: view.gaps.map((g) => {
       const ev = gapEvidence(view, g.label, policy);
-      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
+      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, lowerBound: ev.lowerBound, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
     }),
     bands: view.bands.map((b) => ({ index: b.index, branches: b.branches, gapBelow: b.gapBelow, gapAbove: b.gapAbove, range: [b.range[0], b.range[1]] })),
     spectra,
@@ -135,7 +136,7 @@ export function sheetAnalysis(p: SheetPortrait, policy: VerdictPolicy): Analysis
     bandPath: null,
     gaps: p.gaps.map((g) => {
       const ev = gapEvidence(p, g.label, policy);
-      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
+      return { label: g.label, lower: g.lower, upper: g.upper, minimalGap: g.minimalGap, lowerBound: ev.lowerBound, at: [...g.momentumAtMinimum], tolerance: ev.tolerance, open: ev.open };
     }),
     bands: p.bands.map((b) => ({ index: b.index, branches: b.branches, gapBelow: b.gapBelow, gapAbove: b.gapAbove, range: [b.range[0], b.range[1]] })),
     spectra,
@@ -154,6 +155,7 @@ export function invalidRecord(engine: EngineIdentity, id: string, file: string, 
     engine,
     id,
     file,
+    sourceHash: null,
     status: 'invalid',
     statusReason: first ? `${first.file}:${first.line}:${first.column} ${first.message}` : 'the file did not load',
     model: doc ? safeMetadata(doc) : null,
@@ -167,13 +169,15 @@ export function invalidRecord(engine: EngineIdentity, id: string, file: string, 
     sweeps: [],
     diagnostics: diagnostics.map(recordDiagnostic),
     incident: null,
+    budget: null,
   };
 }
 
 /** A record for a model whose computation did not finish. */
-export function failedRecord(engine: EngineIdentity, loaded: LoadedModel, kind: 'timed-out' | 'crashed' | 'error', message: string): ModelRecord {
+export function failedRecord(engine: EngineIdentity, loaded: LoadedModel, kind: IncidentKind, message: string, diagnostics: Diagnostic[] = []): ModelRecord {
   return {
-    ...invalidRecord(engine, loaded.id, loaded.file, loaded.warnings, loaded.document),
+    ...invalidRecord(engine, loaded.id, loaded.file, [...diagnostics, ...loaded.warnings], loaded.document),
+    sourceHash: loaded.sourceHash,
     status: 'failed',
     statusReason: message,
     parameters: parameterRecords(loaded.document, loaded.parameters),

@@ -26,6 +26,7 @@ export function summarize(records: ModelRecord[], engine: CatalogueSummary['engi
         statusReason: r.statusReason,
         anomalous: r.anomalous.classification,
         claims: { ...r.counts },
+        draft: r.model?.draft ?? false,
       };
     });
   return { recordFormat: RECORD_FORMAT, engine, shard, counts, models };

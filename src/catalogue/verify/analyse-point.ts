@@ -21,7 +21,10 @@ import type { ConsistencyCheck } from '../../numerics/portrait.ts';
 import type { NumericsHints } from '../model-types.generated.ts';
 import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.ts';
 import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
-import { DEFAULT_WINDING_TOLERANCE } from '../../numerics/sheet/winding/gap-winding.ts';
+import { followableGridAdvice } from './grid-advice.ts';
+import { BAND_INTEGER_ACCURACY } from '../../numerics/sheet/sheet-analysis.ts';
+import { formatNumber } from './format.ts';
+import { GAP_TOLERANCE_LIMIT } from './policy.ts';
 
 export interface PointResult {
   dimension: number;
@@ -68,6 +71,7 @@ export function analysePoint(
     const anomalous = classifySheet(entries);
     finishAnomalousClaims(verdicts, claims, anomalous, 2, entries);
     noteEverywhere(verdicts, entries, loosened);
+    followableGridAdvice(verdicts, loaded.document.numerics);
     return { dimension, analysis: sheetAnalysis(portrait, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
   }
   if (dimension === 1) {
@@ -80,6 +84,7 @@ export function analysePoint(
     const anomalous = classifyChain(pi);
     finishAnomalousClaims(verdicts, claims, anomalous, 1, entries);
     noteEverywhere(verdicts, entries, loosened);
+    followableGridAdvice(verdicts, loaded.document.numerics);
     return { dimension, analysis: chainAnalysis(view, policy), verdicts: ordered(verdicts, claims), entries, anomalous, stages, drive: compiled };
   }
   throw new Error(`lattice dimension ${dimension} is not supported (only chains and sheets)`);
@@ -94,7 +99,7 @@ export function analysePoint(
 export function distrustOnInconsistency(verdicts: Verdict[], entries: PortraitEntry[], checks: ConsistencyCheck[]): void {
   const failed = checks.filter((c) => !c.holds && c.inconclusive !== true);
   if (failed.length === 0) return;
-  const why = `computed invariants contradict each other (${failed.map((c) => `${c.name}: ${c.detail}`).join('; ')})`;
+  const why = `computed invariants contradict each other (${failed.map((c) => `${c.name}: ${c.detail}`).join('; ')}); to settle, refine numerics.kGrid and numerics.ribbon.width, and report the model file if the relation still fails`;
   for (const v of verdicts) {
     if (v.outcome === 'unsettled' || v.kind === 'minimal-gap') continue;
     v.outcome = 'unsettled';
@@ -113,7 +118,7 @@ export function distrustOnInconsistency(verdicts: Verdict[], entries: PortraitEn
 
 /** Defaults the tolerance hints are compared with (docs/model-format.md, "Numerics hints"). */
 export const TOLERANCE_DEFAULTS = {
-  /** Strictest default integer tolerance: Chern numbers and chain windings (winding numbers of sheets: 1e-3). */
+  /** Default integer tolerance: Chern numbers, gap winding numbers and chain windings (Z₂ indices: 0.01). */
   integer: 1e-6,
   /** Gap tolerance, units π/T. */
   gap: DEFAULT_GAP_TOLERANCE,
@@ -129,15 +134,15 @@ export function loosenedTolerances(hints: NumericsHints | undefined): string[] {
   const t = hints?.tolerances;
   if (!t) return [];
   const notes: string[] = [];
-  const g = (x: number) => Number(x.toPrecision(3)).toString();
+  const g = formatNumber;
   if (t.integer !== undefined && t.integer > TOLERANCE_DEFAULTS.integer) {
-    notes.push(`the model loosens numerics.tolerances.integer to ${g(t.integer)} (defaults: 1e-6 for Chern numbers and chain windings, 1e-3 for gap winding numbers)`);
+    notes.push(`the model loosens numerics.tolerances.integer to ${g(t.integer)} (default 1e-6 for Chern numbers, gap winding numbers and chain windings)`);
   }
   if (t.gap !== undefined && t.gap < TOLERANCE_DEFAULTS.gap) {
-    notes.push(`the model loosens numerics.tolerances.gap to ${g(t.gap)} π/T (default ${g(TOLERANCE_DEFAULTS.gap)} π/T; verdicts still require the policy's gap floor)`);
+    notes.push(`the model loosens numerics.tolerances.gap to ${g(t.gap)} π/T (default ${g(TOLERANCE_DEFAULTS.gap)} π/T; hard lower limit ${g(GAP_TOLERANCE_LIMIT)} π/T)`);
   }
   if (t.propagator !== undefined) {
-    const derived = verdictPropagatorTolerance(t.gap ?? TOLERANCE_DEFAULTS.gap, t.integer ?? DEFAULT_WINDING_TOLERANCE) / Math.PI;
+    const derived = verdictPropagatorTolerance(t.gap ?? TOLERANCE_DEFAULTS.gap, t.integer ?? BAND_INTEGER_ACCURACY) / Math.PI;
     if (t.propagator > derived) notes.push(`the model loosens numerics.tolerances.propagator to ${g(t.propagator)} π/T (derived default ${g(derived)} π/T)`);
   }
   return notes;
@@ -169,7 +174,7 @@ function finishAnomalousClaims(verdicts: Verdict[], claims: NormalizedClaim[], f
     certificate.gaps = entries.flatMap((e) => e.certificate.gaps).filter((g, i, all) => all.findIndex((h) => sameLabel(h.gap, g.gap)) === i);
     const base = { claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: null, claimed: claim.value, certificate };
     if (holds === null) {
-      verdicts.push({ ...base, outcome: 'unsettled', computed: null, estimate: null, message: `Whether the phase is anomalous could not be settled: ${flag.reason}.`, hint: null });
+      verdicts.push({ ...base, outcome: 'unsettled', computed: null, estimate: null, message: `Whether the phase is anomalous could not be settled: ${flag.reason}.`, hint: 'settle the invariants the reason names first (their own verdicts say how)' });
     } else if (holds === claim.value) {
       verdicts.push({ ...base, outcome: 'confirmed', computed: holds, estimate: holds, message: `The phase is ${holds ? '' : 'not '}anomalous, as claimed: ${flag.reason}.`, hint: null });
     } else {

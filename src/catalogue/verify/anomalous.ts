@@ -22,6 +22,7 @@
  * invariant it needs is unsettled and no settled value already decides it.
  */
 import type { PortraitEntry } from './sheet-verdicts.ts';
+import { formatNumber } from './format.ts';
 
 export type AnomalousClass = 'chern-trivial-anomalous' | 'anomalous' | 'not-anomalous' | 'undetermined';
 
@@ -75,11 +76,11 @@ export function classifyChain(piInvariant: PortraitEntry | undefined): Anomalous
   if (!piInvariant) return { classification: 'undetermined', reason: 'no invariant of the gap at π/T was computed: the file declares no chiral or particle–hole symmetry' };
   const broken = piInvariant.certificate.symmetry.filter((s) => !(s.residual <= s.tolerance));
   if (broken.length > 0) {
-    const residuals = broken.map((s) => `${s.name} holds only to ${s.residual.toPrecision(3)} (tolerance ${s.tolerance.toPrecision(3)})`).join('; ');
+    const residuals = broken.map((s) => `${s.name} holds only to ${formatNumber(s.residual)} (tolerance ${formatNumber(s.tolerance)})`).join('; ');
     return { classification: 'not-anomalous', reason: `symmetry broken: ${residuals}, so no invariant protects end modes at π/T` };
   }
   if (!piInvariant.settled) {
-    const why = piInvariant.certificate.notes.filter((n) => !/^computed as/.test(n));
+    const why = piInvariant.certificate.notes.filter((n) => !/^(computed as|frames as declared|no symmetricTimes declared|the refinement history)/.test(n));
     return { classification: 'undetermined', reason: `${piInvariant.label} is unsettled${why.length > 0 ? ` (${why.join('; ')})` : ''}` };
   }
   if (piInvariant.value !== 0) return { classification: 'anomalous', reason: `${piInvariant.label} is ${piInvariant.value}: end modes at π/T` };

@@ -5,14 +5,14 @@
  * or the order in which models finish.
  */
 import { join } from 'node:path';
-import type { LoadedModel } from '../load.ts';
-import { loadModels } from '../load.ts';
+import type { LoadedModel, ModelFailure } from '../load.ts';
+import { diagnosticFor, loadModels } from '../load.ts';
 import type { CacheStats } from '../cache/store.ts';
 import { ResultCache } from '../cache/store.ts';
 import { cacheKey } from '../cache/cache-key.ts';
 import type { EngineFingerprint } from '../cache/engine-fingerprint.ts';
 import { engineFingerprint } from '../cache/engine-fingerprint.ts';
-import type { CatalogueSummary, ModelRecord, ModelTimings } from '../records/model-record.ts';
+import type { BudgetRecord, CatalogueSummary, ModelRecord, ModelTimings } from '../records/model-record.ts';
 import { failedRecord, invalidRecord } from '../records/record-builder.ts';
 import { summarize } from '../records/summary.ts';
 import { compareCodePoints } from '../records/canonical-json.ts';
@@ -21,6 +21,9 @@ import { formatShard, inShard } from '../shard.ts';
 import type { TaskOutcome } from '../workers/pool.ts';
 import { runTasks } from '../workers/pool.ts';
 import type { VerifyTask } from '../workers/verify-task.ts';
+import { recordIdForFile } from '../inventory.ts';
+import { estimateWork } from '../budget/work-estimate.ts';
+import { budgetIssue, limitsFor, type LimitOptions } from '../budget/limits.ts';
 import type { VerdictPolicy } from './policy.ts';
 import { DEFAULT_POLICY } from './policy.ts';
 import type { ModelOutcome } from './verify-model.ts';
@@ -36,15 +39,24 @@ export interface ProgressEvent {
   elapsedMs: number;
 }
 
-export interface VerifyCatalogueOptions {
-  /** Worker threads (default os.availableParallelism(); 0 runs in this thread). */
+export interface VerifyCatalogueOptions extends LimitOptions {
+  /**
+   * Worker threads (default os.availableParallelism()). 0 runs in this thread, where a
+   * running model cannot be stopped: time limits are then enforced only when
+   * timeLimitSeconds is given (one worker thread is used for it); the work estimate
+   * refuses over-budget models either way.
+   */
   workers?: number;
   /** true (default): .strobe-cache/ under the working directory; false: no cache; or a cache object. */
   cache?: boolean | ResultCache;
   shard?: ShardSpec;
-  /** Per-model time limit in milliseconds (default none). */
-  timeLimitMs?: number;
   onProgress?: (event: ProgressEvent) => void;
+  /**
+   * Called with each record as soon as it is final, before its progress event
+   * and before the next model is reported: whatever a progress line says
+   * finished has been handed over (`strobe check` writes it to disk here).
+   */
+  onRecord?: (record: ModelRecord, timing: ModelTimings) => void;
   policy?: VerdictPolicy;
   /** Module exporting handleTask (default the production task with the real engines). */
   taskModule?: string;
@@ -71,8 +83,31 @@ export function modelCacheKey(model: LoadedModel, engine: EngineFingerprint, pol
   return cacheKey({ content: model.document, engine, options: { policy }, ...(overrides ? { overrides } : {}) });
 }
 
-function failureId(file: string, id: string | undefined): string {
-  return id ?? file.replace(/^.*\//, '').replace(/\.json$/, '');
+/** Record ids of the files that did not load: the id they claim, else one made from the file name; never one in use. */
+function failureIds(failures: ModelFailure[], taken: Set<string>): string[] {
+  return failures.map((failure) => {
+    const base = failure.id ?? recordIdForFile(failure.file);
+    let id = base;
+    // A second file claiming a used id must not overwrite that model's record.
+    for (let n = 2; taken.has(id); n++) id = `${base}--duplicate-${n}`;
+    taken.add(id);
+    return id;
+  });
+}
+
+function budgetRecord(model: LoadedModel, options: LimitOptions): { budget: BudgetRecord; refusal?: ReturnType<typeof budgetIssue> } {
+  const estimate = estimateWork(model.document);
+  const limits = limitsFor(model.document, options);
+  const budget: BudgetRecord = {
+    ...limits,
+    estimate: {
+      seconds: estimate.seconds,
+      memoryBytes: estimate.memoryBytes,
+      stages: estimate.stages.map((s) => ({ stage: s.stage, seconds: s.seconds, memoryBytes: s.memoryBytes, detail: s.detail })),
+    },
+  };
+  const refusal = budgetIssue(estimate, limits);
+  return refusal ? { budget, refusal } : { budget };
 }
 
 export async function verifyCatalogue(paths: string[], options: VerifyCatalogueOptions = {}): Promise<CatalogueReport> {
@@ -85,65 +120,69 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
   const records: ModelRecord[] = [];
   const timings: Record<string, ModelTimings> = {};
   const cacheProblems: string[] = [];
+  /** Final touches every record gets from this run (its file, fingerprint and limits), then it is handed over. */
+  const emit = (record: ModelRecord, timing: ModelTimings, from?: { model: LoadedModel; budget: BudgetRecord }) => {
+    const final = from ? { ...record, file: from.model.file, sourceHash: from.model.sourceHash, budget: from.budget } : record;
+    records.push(final);
+    timings[final.id] = timing;
+    options.onRecord?.(final, timing);
+    return final;
+  };
+
   const taken = new Set(loaded.models.map((m) => m.id));
-  for (const failure of loaded.failures) {
-    let id = failureId(failure.file, failure.id);
-    // A second file claiming a used id must not overwrite that model's record.
-    for (let n = 2; taken.has(id); n++) id = `${failureId(failure.file, failure.id)}--duplicate-${n}`;
-    taken.add(id);
-    if (!inShard(id, options.shard)) continue;
-    records.push(invalidRecord(identity, id, failure.file, failure.diagnostics));
-    timings[id] = { totalMs: 0, stages: {}, cached: false };
-  }
+  failureIds(loaded.failures, taken).forEach((id, i) => {
+    const failure = loaded.failures[i];
+    if (!inShard(id, options.shard)) return;
+    emit({ ...invalidRecord(identity, id, failure.file, failure.diagnostics), sourceHash: failure.sourceHash }, { totalMs: 0, stages: {}, cached: false });
+  });
 
   const models = loaded.models.filter((m) => inShard(m.id, options.shard)).sort((a, b) => compareCodePoints(a.id, b.id));
   const total = models.length;
-  const pending: { model: LoadedModel; key: string; index: number }[] = [];
+  const pending: { model: LoadedModel; key: string; index: number; budget: BudgetRecord }[] = [];
   models.forEach((model, index) => {
+    const { budget, refusal } = budgetRecord(model, options);
+    if (refusal) {
+      const diagnostic = diagnosticFor(model.file, model.source, refusal);
+      emit(failedRecord(identity, model, 'over-budget', `${diagnostic.file}:${diagnostic.line}:${diagnostic.column} ${refusal.message}`, [diagnostic]), { totalMs: 0, stages: {}, cached: false }, { model, budget });
+      options.onProgress?.({ id: model.id, index, total, step: 'over-budget', elapsedMs: 0 });
+      return;
+    }
     const key = modelCacheKey(model, engine, policy);
     const hit = cache?.read<ModelOutcome>(key);
     if (hit?.state === 'hit') {
-      records.push(hit.value.record);
-      timings[model.id] = { totalMs: 0, stages: hit.value.timings.stages, cached: true };
+      emit(hit.value.record, { totalMs: 0, stages: hit.value.timings.stages, cached: true }, { model, budget });
       options.onProgress?.({ id: model.id, index, total, step: 'cached', elapsedMs: 0 });
       return;
     }
     if (hit?.state === 'corrupt') cacheProblems.push(hit.reason);
-    pending.push({ model, key, index });
+    pending.push({ model, key, index, budget });
   });
 
   const tasks: VerifyTask[] = pending.map(({ model }) => ({ model, engine: identity, policy }));
   const started = new Map<number, number>();
-  // One model left and no time limit (the usual warm run): starting a worker thread would cost
-  // more than the model, and there is nothing to enforce, so it runs in this thread.
-  const size = options.workers ?? (tasks.length <= 1 && options.timeLimitMs === undefined ? 0 : undefined);
-  const outcomes = await runTasks<VerifyTask, ModelOutcome>(tasks, {
+  await runTasks<VerifyTask, ModelOutcome>(tasks, {
     entry: options.taskModule ?? defaultTaskModule(),
-    ...(size !== undefined ? { size } : {}),
-    ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}),
+    ...(options.workers !== undefined ? { size: options.workers } : {}),
+    // workers: 0 asks for this thread, where nothing can stop a model; an explicit time limit still gets its worker.
+    ...(options.workers === 0 && options.timeLimitSeconds === undefined ? {} : { timeLimitMs: (i: number) => 1000 * pending[i].budget.timeLimitSeconds }),
     onProgress: (i, step) => {
       if (step === 'started') started.set(i, performance.now());
       const p = pending[i];
       options.onProgress?.({ id: p.model.id, index: p.index, total, step, elapsedMs: performance.now() - (started.get(i) ?? performance.now()) });
     },
-    onSettled: (i, outcome) => {
-      const p = pending[i];
-      options.onProgress?.({ id: p.model.id, index: p.index, total, step: outcome.state === 'done' ? 'done' : outcome.state, elapsedMs: outcome.elapsedMs });
+    onSettled: (i, settled) => {
+      const { model, key, index, budget } = pending[i];
+      const outcome = settled as TaskOutcome<ModelOutcome>;
+      if (outcome.state === 'done') {
+        emit(outcome.result.record, outcome.result.timings, { model, budget });
+        if (cache && outcome.result.record.status !== 'failed') cache.write(key, outcome.result);
+      } else {
+        const kind = outcome.state === 'timed-out' ? 'timed-out' : outcome.state === 'crashed' ? 'crashed' : 'error';
+        const message = outcome.state === 'threw' ? `the engine raised an error: ${outcome.message}` : outcome.message;
+        emit(failedRecord(identity, model, kind, message), { totalMs: outcome.elapsedMs, stages: {}, cached: false }, { model, budget });
+      }
+      options.onProgress?.({ id: model.id, index, total, step: outcome.state === 'done' ? 'done' : outcome.state, elapsedMs: outcome.elapsedMs });
     },
-  });
-
-  outcomes.forEach((outcome: TaskOutcome<ModelOutcome>, i) => {
-    const { model, key } = pending[i];
-    if (outcome.state === 'done') {
-      records.push(outcome.result.record);
-      timings[model.id] = outcome.result.timings;
-      if (cache && outcome.result.record.status !== 'failed') cache.write(key, outcome.result);
-      return;
-    }
-    const kind = outcome.state === 'timed-out' ? 'timed-out' : outcome.state === 'crashed' ? 'crashed' : 'error';
-    const message = outcome.state === 'threw' ? `the engine raised an error: ${outcome.message}` : outcome.message;
-    records.push(failedRecord(identity, model, kind, message));
-    timings[model.id] = { totalMs: outcome.elapsedMs, stages: {}, cached: false };
   });
 
   records.sort((a, b) => compareCodePoints(a.id, b.id) || compareCodePoints(a.file, b.file));

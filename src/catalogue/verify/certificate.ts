@@ -9,10 +9,20 @@ import type { IntegerEstimate } from '../../numerics/certificates.ts';
 export interface GapEvidence {
   /** Gap label (units π/T). */
   gap: number;
-  /** Smallest direct gap found (units π/T) and where (reduced momenta). */
+  /** Smallest direct gap found by refinement (units π/T) and where (reduced momenta). */
   minimalGap: number;
   at: number[];
-  /** The tolerance it had to exceed (see policy.ts), and whether it did. */
+  /**
+   * Certified lower bound on the minimal direct gap over the whole zone (units π/T;
+   * 0 when none was shown), the Floquet operators it took, and its outcome:
+   * 'above' the tolerance, a sample 'below' it, or 'undecided' (budget spent).
+   */
+  lowerBound: number;
+  bound: 'above' | 'below' | 'undecided' | 'none';
+  evaluations: number;
+  /** True when the refined gap is below 1 % of the adjacent bandwidth: the point sits at or near a phase transition. */
+  nearTransition: boolean;
+  /** The tolerance it had to exceed (see policy.ts), and whether the lower bound did. */
   tolerance: number;
   open: boolean;
 }
@@ -25,8 +35,8 @@ export interface Certificate {
   /** |raw − round raw| and the tolerance it was held to. */
   residual: number | null;
   residualTolerance: number | null;
-  /** Grids and values of successive refinements, coarsest first. */
-  refinement: { grid: number[]; value: number }[];
+  /** Grids and values of successive refinements, coarsest first; a label says what a step was when the grid does not. */
+  refinement: { grid: number[]; value: number; label?: string }[];
   /** Gaps the number depends on. */
   gaps: GapEvidence[];
   /** Symmetry residuals (e.g. ‖ΓUΓ − U†‖) with their tolerance. */
@@ -47,7 +57,7 @@ export function certificateFromEstimate(estimate: IntegerEstimate, stage: string
     raw: estimate.raw,
     residual: estimate.residual,
     residualTolerance: estimate.tolerance,
-    refinement: estimate.history.map((step) => ({ grid: [...step.grid], value: step.value })),
+    refinement: estimate.history.map((step) => ({ grid: [...step.grid], value: step.value, ...(step.label !== undefined ? { label: step.label } : {}) })),
     gaps: [],
     symmetry: [],
     stage,

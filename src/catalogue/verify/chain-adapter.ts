@@ -17,9 +17,11 @@ import type { AnalysisRequest } from './engines.ts';
 import { propagatorHints } from './engines.ts';
 import type { ChainInvariant, ChainView } from './chain-view.ts';
 import { wrapLabel } from './claims.ts';
+import { residualEntries } from './symmetry-verdicts.ts';
 import { verdictPropagatorTolerance } from '../../numerics/evolution/propagator.ts';
 import { DEFAULT_GAP_TOLERANCE } from '../../numerics/sheet/gaps.ts';
 import { DEFAULT_POLICY } from './policy.ts';
+import { formatNumber } from './format.ts';
 
 
 /**
@@ -37,6 +39,8 @@ export function chainOptions(request: AnalysisRequest): ChainAnalysisOptions {
   // Sweeps map bulk quantities only: no open chain, so no end modes and no bulk–end relations there.
   if (request.skip.has('edges')) options.run = { openChain: false };
   if (hints?.kGrid?.[0] !== undefined) options.gapGrid = hints.kGrid[0];
+  if (hints?.tolerances?.gap !== undefined) options.gapTolerance = hints.tolerances.gap;
+  if (hints?.gapEvaluations !== undefined) options.gapEvaluations = hints.gapEvaluations;
   const derived = Math.min(
     verdictPropagatorTolerance(hints?.tolerances?.gap ?? DEFAULT_GAP_TOLERANCE, hints?.tolerances?.integer ?? DEFAULT_CHAIN_INTEGER_TOLERANCE),
     CHAIN_SYMMETRY_PROPAGATOR_TOLERANCE,
@@ -60,22 +64,13 @@ function withTolerance(e: IntegerEstimate, tolerance: number, stable: boolean): 
   return integerEstimate(e.raw, tolerance, e.grid, e.history, stable, e.caveat);
 }
 
-function symmetryEntries(reports: ChainSymmetryReport[], which: ChainSymmetryReport['symmetry'][]) {
-  return reports
-    .filter((r) => which.includes(r.symmetry))
-    .flatMap((r) => [
-      { name: `${r.symmetry} symmetry of H(t)${r.frameTime !== undefined ? ` about t₀ = ${Number(r.frameTime.toPrecision(6))}` : ''}`, residual: r.hamiltonianResidual, tolerance: r.tolerance },
-      { name: `${r.symmetry} symmetry of the Floquet operator`, residual: r.floquetResidual, tolerance: r.tolerance },
-    ]);
-}
-
 /** Accepted residual of a Z₂ index when the model sets none (the value is exactly 0 or 1; the margin is the evidence). */
 const DEFAULT_Z2_TOLERANCE = 0.01;
 
 /** A Z₂ index from a sign with a margin, as an IntegerEstimate (no refinement: the margin is the evidence). */
 function z2Estimate(sign: 1 | -1 | null, margin: number, tolerance: number, gridSize: number, integerTolerance = DEFAULT_Z2_TOLERANCE): IntegerEstimate {
   const value = sign === -1 ? 1 : 0;
-  const caveat = sign === null ? `the Pfaffian-sign margin ${margin.toPrecision(3)} is below its tolerance ${tolerance.toPrecision(3)}` : undefined;
+  const caveat = sign === null ? `the Pfaffian-sign margin ${formatNumber(margin)} is below its tolerance ${formatNumber(tolerance)}` : undefined;
   return integerEstimate(sign === null ? NaN : value, integerTolerance, [gridSize], [{ grid: [gridSize], value: sign === null ? NaN : value }], sign !== null, caveat);
 }
 
@@ -98,18 +93,38 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     momentumAtMinimum: [g.momentumAtMinimum],
     open: g.open,
     arcWidth: g.arcWidth,
+    ...(g.certified ? { certified: g.certified } : {}),
   }));
-  // Band velocity per unit of reduced momentum (2π per radian of k); read by the gap tolerance while a gap is open.
-  const open = p.gaps.filter((g) => g.open && g.clearance > 0);
-  const velocity = open.length > 0 ? 2 * Math.PI * Math.max(p.velocity, ...open.map((g) => g.clearance)) : undefined;
+  // Width of each of the bands between the two gaps (two bands share what the gap arcs leave of the circle).
+  const bandwidth = Math.max(0, (2 - p.gaps.reduce((a, g) => a + g.arcWidth, 0)) / 2);
   const invariants: ChainInvariant[] = [];
-  const chiralSymmetry = symmetryEntries(p.symmetries, p.chiral?.source === 'declared' ? ['chiral'] : ['time-reversal', 'particle-hole']);
+  const chiralSymmetry = residualEntries(p.symmetries, p.chiral?.source === 'declared' ? ['chiral'] : ['time-reversal', 'particle-hole']);
   if (p.chiral?.status === 'computed') {
-    if (p.chiral.zero) invariants.push({ gap: 0, kind: 'winding', estimate: combined(p.chiral.zero), symmetry: chiralSymmetry, fromFrames: true });
-    if (p.chiral.pi) invariants.push({ gap: 1, kind: 'winding', estimate: combined(p.chiral.pi), symmetry: chiralSymmetry, fromFrames: true });
+    const half = p.chiral.halfPeriod;
+    const t0 = half ? Number(half.frameTime.toPrecision(6)) : NaN;
+    for (const label of [0, 1] as const) {
+      const heff = label === 0 ? p.chiral.zero : p.chiral.pi;
+      const byHalf = label === 0 ? half?.zero : half?.pi;
+      if (heff === undefined) continue;
+      const symbol = label === 0 ? 'ν₀' : 'ν_π';
+      // H_eff needs both gaps open; the half-period method only the gap it belongs to (chain/half-period-winding.ts).
+      if (!heff.converged && byHalf?.converged) {
+        const block = label === 0 ? 'det c, c = ⟨Γ = −1|F|Γ = +1⟩' : 'det a, a = ⟨Γ = +1|F|Γ = +1⟩';
+        invariants.push({
+          gap: label,
+          kind: 'winding',
+          estimate: integerTolerance === undefined ? byHalf : withTolerance(byHalf, integerTolerance, true),
+          symmetry: chiralSymmetry,
+          method: `${symbol} from the half-period evolution F = U(t₀ + T/2, t₀), t₀ = ${t0} (Asbóth, Tarasinski, Delplace, PRB 90, 125143 (2014)): winding of ${block}; the H_eff windings are unsettled (they need both gaps open)`,
+        });
+        continue;
+      }
+      const agrees = byHalf?.converged && heff.converged ? `; the half-period method in t₀ = ${t0} gives ${byHalf.nearest}` : '';
+      invariants.push({ gap: label, kind: 'winding', estimate: combined(heff), symmetry: chiralSymmetry, fromFrames: true, method: `${symbol} = (ν′ ${label === 0 ? '+' : '−'} ν″)/2 from the H_eff windings of both frames${agrees}` });
+    }
   }
   if (p.majorana?.status === 'computed' && invariants.length === 0) {
-    const ph = symmetryEntries(p.symmetries, ['particle-hole']);
+    const ph = residualEntries(p.symmetries, ['particle-hole']);
     const points = p.majorana.momenta.length;
     const z2 = (sign: 1 | -1 | null, margin: number) => z2Estimate(sign, margin, p.majorana!.tolerance, points, integerTolerance);
     invariants.push({ gap: 0, kind: 'z2', estimate: z2(p.majorana.zero, p.majorana.zeroMargin), symmetry: ph, signDecided: true });
@@ -145,12 +160,14 @@ export function chainView(p: ChainPortrait, integerTolerance?: number): ChainVie
     invariants,
     ...(invariantNote !== undefined ? { invariantNote } : {}),
     frames,
+    frameNotes: p.chiral?.frameNotes ?? [],
     endModes,
     openChain: chain ? { length: chain.cells, quasienergies: chain.quasienergies, lowEdgeWeight: chain.lowEdgeWeight, highEdgeWeight: chain.highEdgeWeight } : null,
-    symmetry: symmetryEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']),
+    symmetry: residualEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']),
+    symmetryClass: p.symmetryClass,
     consistency: p.consistency,
     propagatorAccuracy: p.propagatorAccuracy,
-    ...(velocity !== undefined ? { velocity } : {}),
+    bandwidth,
     timings: p.timings,
   };
 }

@@ -14,30 +14,26 @@ import { gapKey } from './claims.ts';
 import { emptyCertificate } from './certificate.ts';
 import type { Certificate } from './certificate.ts';
 import type { CountObservation, SettledInteger } from './evidence.ts';
-import { countAtTwoSizes, countEvidence, judgeEstimate } from './evidence.ts';
-import { formatQuasienergy } from './format.ts';
+import { countAtTwoSizes, countEvidence, gapReason, judgeEstimate, STAGE_REMEDIES, withRemedy } from './evidence.ts';
+import { formatGrid, formatQuasienergy } from './format.ts';
 import type { VerdictPolicy } from './policy.ts';
 import type { PortraitEntry } from './sheet-verdicts.ts';
 import { entry, findGap, gapEvidence, minimalGapVerdict, noGapReason, notApplicable, sameLabel } from './sheet-verdicts.ts';
 import type { Alternative, SymmetryResidual, Verdict } from './verdict.ts';
 import { integerVerdict, symmetryBrokenVerdict } from './verdict.ts';
+import { describeResiduals, isBroken, symmetryClassVerdict, symmetryFor, symmetryOf, symmetryVerdict } from './symmetry-verdicts.ts';
 
 export const SIGN_HINT_CHAIN = 'sign differs: check the direction of a₁ and the order of the sublattices in the chiral operator Γ';
 
+/** ν_π flips when the two frames are swapped: a sign-only disagreement at π/T most often means the other frame order. */
+export function frameOrderHint(view: ChainView): string {
+  const first = view.frames[0];
+  const declared = (view.frameNotes ?? []).some((n) => n.startsWith('frames as declared'));
+  const where = first ? ` (here t₀ = ${Number(first.time.toPrecision(6))}, ${declared ? 'the first time listed' : 'found by the engine, since none is listed'})` : '';
+  return `sign differs: ν_π = (ν′ − ν″)/2 changes sign when the two symmetric frames are swapped, and the first time in claims.symmetries.chiral.symmetricTimes defines ν′${where}; check the order of the frames (or the order of the sublattices in Γ)`;
+}
+
 const frameSymbol = (name: 'first' | 'second') => (name === 'first' ? 'ν′' : 'ν″');
-
-/** Which declared symmetry a residual of the view belongs to (names start with the symmetry, chain-view.ts). */
-function symmetryOf(name: string): SymmetryName | null {
-  const m = /^(chiral|particle-hole|time-reversal) symmetry/.exec(name);
-  return m ? (m[1] as SymmetryName) : null;
-}
-
-/** The view's residuals, held to the engine's tolerance or the policy floor, whichever is larger. */
-function symmetryFor(view: ChainView, policy: VerdictPolicy, which?: readonly SymmetryName[]): SymmetryResidual[] {
-  return view.symmetry
-    .filter((s) => which === undefined || which.includes(symmetryOf(s.name) as SymmetryName))
-    .map((s) => ({ name: s.name, residual: s.residual, tolerance: Math.max(s.tolerance, policy.symmetryTolerance) }));
-}
 
 /**
  * The symmetries the invariants at 0 and π/T rest on, as the engine uses them:
@@ -52,73 +48,6 @@ export function invariantSymmetries(view: ChainView): SymmetryName[] {
   return [];
 }
 
-const isBroken = (s: SymmetryResidual) => !(s.residual <= s.tolerance);
-
-/** The relation a residual measures, in formulas, and where it was taken (src/numerics/chain/symmetry-residuals.ts). */
-function relation(name: string): { formula: string; where: string } {
-  const floquet = /Floquet/.test(name);
-  const frame = /about t₀ = ([^ ]+)/.exec(name);
-  const best = frame ? `, best frame t₀ = ${frame[1]}` : '';
-  switch (symmetryOf(name)) {
-    case 'chiral':
-      return floquet ? { formula: '‖ΓUΓ† − U†‖', where: 'in the symmetric frame' } : { formula: '‖ΓH(t₀+s)Γ† + H(t₀−s)‖', where: `max over k and s${best}` };
-    case 'particle-hole':
-      return floquet ? { formula: '‖U_C U(k)* U_C† − U(−k)‖', where: 'max over k' } : { formula: '‖U_C H(k, t)* U_C† + H(−k, t)‖', where: 'max over k and t' };
-    case 'time-reversal':
-      return floquet ? { formula: '‖U_T U(k)* U_T† − U(−k)†‖', where: 'in the symmetric frame' } : { formula: '‖U_T H(k, t₀+s)* U_T† − H(−k, t₀−s)‖', where: `max over k and s${best}` };
-    default:
-      return { formula: name, where: '' };
-  }
-}
-
-export function describeResiduals(list: SymmetryResidual[]): string {
-  return list
-    .map((s) => {
-      const r = relation(s.name);
-      return `${r.formula} = ${s.residual.toPrecision(3)} ${isBroken(s) ? '>' : '≤'} tolerance ${s.tolerance.toPrecision(3)}${r.where ? ` (${r.where})` : ''}`;
-    })
-    .join('; ');
-}
-
-const SYMMETRY_WORDS: Record<SymmetryName, { what: string; hint: string }> = {
-  chiral: {
-    what: 'The chiral symmetry Γ',
-    hint: 'Γ must satisfy Γ H(t₀ + s) Γ† = −H(t₀ − s) for some frame t₀: check the operator (its signs follow the order of lattice.orbitals) and terms that break it, such as onsite energies',
-  },
-  'particle-hole': {
-    what: 'The particle–hole symmetry U_C K',
-    hint: 'U_C must satisfy U_C H(k, t)* U_C† = −H(−k, t): check the unitary (particle block first, then hole block, for Nambu models) and terms that break it',
-  },
-  'time-reversal': {
-    what: 'The time-reversal symmetry U_T K',
-    hint: 'U_T must satisfy U_T H(k, t₀ + s)* U_T† = H(−k, t₀ − s) for some frame t₀: check the unitary and complex hoppings or drive phases that break it',
-  },
-};
-
-/** A declared symmetry operator: confirmed when every residual is within tolerance, contradicted otherwise. */
-function symmetryVerdict(claim: NormalizedClaim & { kind: 'symmetry' }, residuals: SymmetryResidual[]): Verdict {
-  const certificate = emptyCertificate('symmetries');
-  certificate.symmetry = residuals;
-  const words = SYMMETRY_WORDS[claim.symmetry];
-  const base = { claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: null, claimed: claim.value, certificate };
-  if (residuals.length === 0) {
-    certificate.notes.push('the engine reported no residual for this symmetry');
-    return { ...base, outcome: 'unsettled', computed: null, estimate: null, message: `${words.what} could not be checked: the engine reported no residual for it.`, hint: null };
-  }
-  const worst = residuals.reduce((a, b) => (b.residual / b.tolerance > a.residual / a.tolerance || Number.isNaN(b.residual) ? b : a));
-  certificate.raw = worst.residual;
-  certificate.residual = worst.residual;
-  certificate.residualTolerance = worst.tolerance;
-  certificate.notes.push('residuals are maxima over the engine\'s check momenta and times; Hamiltonian residuals are relative to max(1, ‖H‖_F)');
-  const broken = residuals.filter(isBroken);
-  if (broken.length === 0) {
-    return { ...base, outcome: 'confirmed', computed: true, estimate: true, message: `${words.what} holds: ${describeResiduals(residuals)}.`, hint: null };
-  }
-  const why = `symmetry broken: ${describeResiduals(broken)}`;
-  certificate.notes.push(why);
-  return { ...base, outcome: 'contradicted', computed: false, estimate: false, message: `${words.what} does not hold, ${why}.`, hint: words.hint };
-}
-
 interface InvariantEvidence extends SettledInteger {
   /** Residuals above tolerance of the symmetries the invariant rests on. */
   broken: SymmetryResidual[];
@@ -128,7 +57,7 @@ function invariantEvidence(view: ChainView, label: number, policy: VerdictPolicy
   const gap = findGap(view.gaps, label);
   const inv = gap ? view.invariants.find((i) => sameLabel(i.gap, gap.label)) : undefined;
   const basis = invariantSymmetries(view);
-  const symmetry = inv ? inv.symmetry.map((s) => ({ ...s, tolerance: Math.max(s.tolerance, policy.symmetryTolerance) })) : symmetryFor(view, policy, basis);
+  const symmetry = inv ? inv.symmetry.map((s) => ({ ...s, tolerance: Math.max(s.tolerance, policy.symmetryTolerance) })) : symmetryFor(view.symmetry, policy, basis);
   const broken = symmetry.filter(isBroken);
   const stage = inv?.kind === 'z2' || (!inv && basis.length === 1 && basis[0] === 'particle-hole') ? 'majorana' : 'invariant';
   if (broken.length > 0) {
@@ -148,26 +77,32 @@ function invariantEvidence(view: ChainView, label: number, policy: VerdictPolicy
     else {
       const g = gapEvidence(view, label, policy);
       certificate.gaps = [g];
-      if (!g.open) reasons.push(`the gap at ${formatQuasienergy(g.gap)} is ${g.minimalGap.toPrecision(3)} π/T, not above the tolerance ${g.tolerance.toPrecision(3)} π/T`);
-      if (basis.length === 0) reasons.push('no chiral or particle–hole symmetry is declared (claims.symmetries), and without one a chain has no invariant');
-      else if (g.open) reasons.push(`the engine computed no invariant${view.invariantNote ? `: ${view.invariantNote}` : ''}`);
+      if (!g.open) reasons.push(gapReason(g));
+      if (basis.length === 0) {
+        reasons.push('no chiral or particle–hole symmetry is declared (claims.symmetries), and without one a chain has no invariant; to settle, declare the chiral operator (with symmetricTimes) or the particle–hole operator in claims.symmetries');
+      } else if (g.open) {
+        reasons.push(withRemedy(`the engine computed no invariant${view.invariantNote ? `: ${view.invariantNote}` : ''}`, 'check the declared operator against the drive (see the verdict on the symmetry)'));
+      }
     }
     certificate.notes.push(...reasons);
     return { value: null, nearest: null, settled: false, reasons, certificate, broken };
   }
   const fromFrames = inv.fromFrames === true && view.frames.length > 0;
   const ev = judgeEstimate(inv.estimate, [gapEvidence(view, label, policy)], policy, stage, symmetry, inv.signDecided === true || fromFrames);
+  if (inv.method) ev.certificate.notes.push(`computed as ${inv.method}`);
+  if (inv.kind === 'winding') ev.certificate.notes.push(...(view.frameNotes ?? []));
   if (fromFrames) {
     // ν₀ = (ν′ + ν″)/2 and ν_π = (ν′ − ν″)/2 are only as stable as the frame windings they come from.
     for (const { frame, ev: fe } of frameEvidence(view, policy)) {
-      ev.certificate.refinement.push(...fe.certificate.refinement.map((step) => ({ grid: [...step.grid], value: step.value })));
+      const symbol = frameSymbol(frame.name);
+      ev.certificate.refinement.push(...fe.certificate.refinement.map((step) => ({ grid: [...step.grid], value: step.value, label: `${symbol}: ${step.label ?? formatGrid(step.grid)}` })));
       if (!fe.settled) {
-        const why = `${frameSymbol(frame.name)} (frame t₀ = ${Number(frame.time.toPrecision(6))}) is unsettled`;
+        const why = withRemedy(`${frameSymbol(frame.name)} (frame t₀ = ${Number(frame.time.toPrecision(6))}) is unsettled`, STAGE_REMEDIES.frames);
         ev.reasons.push(why);
         ev.certificate.notes.push(why);
       }
     }
-    ev.certificate.notes.push('computed as (ν′ ± ν″)/2 from the frame windings; the refinement history lists ν′ then ν″');
+    ev.certificate.notes.push('the refinement history lists ν′ then ν″');
     if (ev.reasons.length > 0) {
       ev.settled = false;
       ev.value = null;
@@ -200,7 +135,7 @@ function endModeEvidence(view: ChainView, label: number, policy: VerdictPolicy):
 }
 
 function frameEvidence(view: ChainView, policy: VerdictPolicy) {
-  const symmetry = symmetryFor(view, policy, invariantSymmetries(view));
+  const symmetry = symmetryFor(view.symmetry, policy, invariantSymmetries(view));
   return view.frames.map((f) => ({ frame: f, ev: judgeEstimate(f.estimate, view.gaps.map((g) => gapEvidence(view, g.label, policy)), policy, 'frames', symmetry) }));
 }
 
@@ -218,7 +153,8 @@ export function judgeChain(view: ChainView, claims: NormalizedClaim[], policy: V
           break;
         }
         const alternatives: Alternative[] = [];
-        if (ev.value) alternatives.push({ value: -ev.value, hint: SIGN_HINT_CHAIN });
+        const chiralPi = sameLabel(claim.gap, 1) && view.invariants.some((i) => i.kind === 'winding' && sameLabel(i.gap, 1));
+        if (ev.value) alternatives.push({ value: -ev.value, hint: chiralPi ? frameOrderHint(view) : SIGN_HINT_CHAIN });
         for (const l of labels) {
           if (sameLabel(l, claim.gap)) continue;
           const v = invariantEvidence(view, l, policy).value;
@@ -252,7 +188,10 @@ export function judgeChain(view: ChainView, claims: NormalizedClaim[], policy: V
       case 'anomalous':
         break; // judged from the whole portrait (analyse-point.ts)
       case 'symmetry':
-        verdicts.push(symmetryVerdict(claim, symmetryFor(view, policy, [claim.symmetry])));
+        verdicts.push(symmetryVerdict(claim, symmetryFor(view.symmetry, policy, [claim.symmetry])));
+        break;
+      case 'symmetry-class':
+        verdicts.push(view.symmetryClass ? symmetryClassVerdict(claim, view.symmetryClass, view.symmetry, policy) : notApplicable(claim, 'a view without the declared operators'));
         break;
       default:
         verdicts.push(notApplicable(claim, 'a one-dimensional model'));
@@ -279,7 +218,7 @@ export function judgeChain(view: ChainView, claims: NormalizedClaim[], policy: V
     entries.push(entry(`frame-${frame.name}/winding`, 'frame-winding', null, `winding ${frameSymbol(frame.name)} of the ${frame.name} symmetric frame (t₀ = ${Number(frame.time.toPrecision(6))})`, ev, false));
   }
   // Every chain certificate shows the declared symmetries' residuals; invariants list the ones they rest on.
-  const all = symmetryFor(view, policy);
+  const all = symmetryFor(view.symmetry, policy);
   for (const c of [...verdicts.map((v) => v.certificate), ...entries.filter((e) => e.quantity !== 'gap-invariant').map((e) => e.certificate)]) {
     if (c.symmetry.length === 0) c.symmetry = all.map((s) => ({ ...s }));
   }

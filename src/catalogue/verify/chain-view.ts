@@ -5,6 +5,7 @@
  */
 import type { IntegerEstimate } from '../../numerics/certificates.ts';
 import type { BandGroupReport, ConsistencyCheck, GapReport } from '../../numerics/portrait.ts';
+import type { SymmetryClassReport } from '../../numerics/symmetry/altland-zirnbauer.ts';
 
 export interface ChainInvariant {
   /** Gap label (units π/T): 0 for ν₀, 1 for ν_π. */
@@ -14,10 +15,14 @@ export interface ChainInvariant {
   estimate: IntegerEstimate;
   /** Symmetry relations the invariant rests on, with residuals and tolerances. */
   symmetry: { name: string; residual: number; tolerance: number }[];
+  /** The Altland–Zirnbauer class the declared operators define (absent from hand-made views). */
+  symmetryClass?: SymmetryClassReport;
   /** True when the value is not refined on grids but decided by a sign with a margin (Pfaffian signs). */
   signDecided?: boolean;
   /** True for ν₀, ν_π computed from the frame windings: their stability under refinement is that of the frames. */
   fromFrames?: boolean;
+  /** How a chiral invariant was computed, in words, for the certificate. */
+  method?: string;
 }
 
 export interface FrameWinding {
@@ -44,6 +49,8 @@ export interface ChainView {
   bands: BandGroupReport[];
   invariants: ChainInvariant[];
   frames: FrameWinding[];
+  /** Which symmetric frames were used and where they come from (the model's symmetricTimes or the engine's search). */
+  frameNotes?: string[];
   endModes: EndModeCount[];
   /**
    * End-mode counts of a second, longer open chain (verify-model.ts recomputes
@@ -58,13 +65,15 @@ export interface ChainView {
    * " symmetry of H(t)…" or " symmetry of the Floquet operator".
    */
   symmetry: { name: string; residual: number; tolerance: number }[];
+  /** The Altland–Zirnbauer class the declared operators define (absent from hand-made views). */
+  symmetryClass?: SymmetryClassReport;
   /** Why the engine computed no 0/π invariant although a symmetry is declared (e.g. no symmetric time frame), when it says. */
   invariantNote?: string;
   consistency: ConsistencyCheck[];
   propagatorAccuracy: number | null;
   /** The engine's gap tolerance (units π/T). */
   gapTolerance?: number;
-  /** Largest band velocity (units π/T per unit of reduced momentum). */
-  velocity?: number;
+  /** Width of the bands next to the gaps (units π/T), to tell a gap small against it. */
+  bandwidth?: number;
   timings: Record<string, number>;
 }

@@ -5,6 +5,7 @@
  * each gets its own verdict.
  */
 import type { ModelDocument, Quantity } from '../model-types.generated.ts';
+import type { AltlandZirnbauerClass } from '../../numerics/symmetry/altland-zirnbauer.ts';
 
 interface ClaimBase {
   /** Stable identifier within the model, e.g. "gap-1/winding", "band-0/chern". */
@@ -22,7 +23,9 @@ export type NormalizedClaim =
   | (ClaimBase & { kind: 'minimal-gap'; gap: number; value: number })
   | (ClaimBase & { kind: 'anomalous'; value: boolean })
   /** A declared symmetry operator: the file claims the drive has this symmetry (checked through its residuals). */
-  | (ClaimBase & { kind: 'symmetry'; symmetry: SymmetryName; value: true });
+  | (ClaimBase & { kind: 'symmetry'; symmetry: SymmetryName; value: true })
+  /** The Altland–Zirnbauer class (checked against the declared operators and their squares). */
+  | (ClaimBase & { kind: 'symmetry-class'; value: AltlandZirnbauerClass });
 
 export type SymmetryName = 'chiral' | 'particle-hole' | 'time-reversal';
 
@@ -53,6 +56,7 @@ export function wrapLabel(x: number): number {
 
 export function normalizeClaims(doc: ModelDocument, evaluate: QuantityEvaluator): NormalizedClaim[] {
   const claims: NormalizedClaim[] = [];
+  if (doc.claims?.symmetryClass !== undefined) claims.push({ kind: 'symmetry-class', id: 'symmetry-class', pointer: '/claims/symmetryClass', value: doc.claims.symmetryClass });
   const declared = doc.claims?.symmetries;
   const symmetries: [SymmetryName, unknown][] = [['chiral', declared?.chiral], ['particle-hole', declared?.particleHole], ['time-reversal', declared?.timeReversal]];
   for (const [symmetry, spec] of symmetries) {
@@ -103,7 +107,7 @@ export function normalizeClaims(doc: ModelDocument, evaluate: QuantityEvaluator)
 export function claimedGapLabels(claims: NormalizedClaim[]): number[] {
   const labels: number[] = [];
   for (const c of claims) {
-    const label = c.kind === 'chern' ? c.cut : c.kind === 'anomalous' || c.kind === 'symmetry' ? undefined : c.gap;
+    const label = c.kind === 'chern' ? c.cut : c.kind === 'anomalous' || c.kind === 'symmetry' || c.kind === 'symmetry-class' ? undefined : c.gap;
     if (label !== undefined && !labels.some((l) => Math.abs(l - label) < 1e-9)) labels.push(label);
   }
   return labels.sort((a, b) => a - b);

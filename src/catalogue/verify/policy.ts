@@ -5,20 +5,16 @@
  * verdicts it affected.
  */
 export interface VerdictPolicy {
-  /** Smallest quasienergy gap (units π/T) we ever accept as open, whatever the grid. */
-  gapFloor: number;
   /**
-   * The sampled minimal gap can overestimate the true one by about
-   * (band velocity) × (grid spacing): between two k points a band can move by
-   * that much. A gap counts as open only if it exceeds
-   *   max(gapFloor, velocitySafety · v · Δs),
-   * v = π · (width of the adjacent band groups) in units π/T per unit of
-   * reduced momentum (the steepest slope of a cosine band of that width) and
-   * Δs = 1 / (smallest grid size). When an engine reports the band velocity
-   * itself (chains), that value replaces the estimate. This keeps a
-   * near-critical model from being confirmed by luck on a coarse grid.
+   * Hard lower limit of the gap tolerance (units π/T): no model setting can
+   * make a smaller gap count as open. 10⁻⁵ π/T is ten times the distance below
+   * which the winding integral treats a gap as closed (10⁻⁶), and a thousand
+   * times the time-integration tolerance derived for it (propagator.ts), so
+   * eigenphase errors stay far below the gap they would have to close.
    */
-  velocitySafety: number;
+  gapFloor: number;
+  /** Gap tolerance (units π/T) when neither the engine nor the model sets one. */
+  defaultGapTolerance: number;
   /** Accept an integer only if the last two refinement steps round to the same value. */
   requireStableRefinement: boolean;
   /** Largest |x − round x| accepted when the engine's own estimate carries no tolerance. */
@@ -27,17 +23,23 @@ export interface VerdictPolicy {
   symmetryTolerance: number;
 }
 
+/** The hard lower limit of numerics.tolerances.gap (schemas/model/numerics.json enforces the same number). */
+export const GAP_TOLERANCE_LIMIT = 1e-5;
+
 export const DEFAULT_POLICY: VerdictPolicy = {
-  gapFloor: 1e-3,
-  velocitySafety: 0.5,
+  gapFloor: GAP_TOLERANCE_LIMIT,
+  defaultGapTolerance: 1e-3,
   requireStableRefinement: true,
   defaultResidualTolerance: 0.05,
   symmetryTolerance: 1e-8,
 };
 
-/** The gap tolerance for a given adjacent band width (units π/T) and grid. */
-export function gapTolerance(policy: VerdictPolicy, adjacentWidth: number, grid: number[]): number {
-  const n = grid.length === 0 ? 1 : Math.min(...grid);
-  const velocity = Math.PI * Math.max(0, adjacentWidth);
-  return Math.max(policy.gapFloor, (policy.velocitySafety * velocity) / Math.max(1, n));
+/**
+ * The tolerance a gap must exceed: the engine's (the model's numerics.tolerances.gap,
+ * else the default 10⁻³ π/T), never below the hard limit. Openness is judged on
+ * the certified lower bound of the minimal direct gap (portrait.ts, GapCertificate),
+ * so the grid spacing no longer enters.
+ */
+export function gapTolerance(policy: VerdictPolicy, engineTolerance: number | undefined): number {
+  return Math.max(policy.gapFloor, engineTolerance ?? policy.defaultGapTolerance);
 }

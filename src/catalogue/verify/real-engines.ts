@@ -26,10 +26,11 @@ export function sheetOptions(request: AnalysisRequest): SheetOptions {
   // The Chern refinement starts at this grid too (sheet-analysis.ts).
   if (hints?.kGrid) options.grid = hints.kGrid.length >= 2 ? hints.kGrid.slice(0, 2) : [hints.kGrid[0], hints.kGrid[0]];
   if (hints?.tolerances?.gap !== undefined) options.gapTolerance = hints.tolerances.gap;
+  if (hints?.gapEvaluations !== undefined) options.gapEvaluations = hints.gapEvaluations;
   const integer = hints?.tolerances?.integer;
-  if (integer !== undefined) {
-    options.chern = { tolerance: integer };
-    options.winding = { tolerance: integer };
+  if (integer !== undefined) options.chern = { tolerance: integer };
+  if (integer !== undefined || hints?.windingEvaluations !== undefined) {
+    options.winding = { ...(integer !== undefined ? { tolerance: integer } : {}), ...(hints?.windingEvaluations !== undefined ? { evaluations: hints.windingEvaluations } : {}) };
   }
   const propagator = propagatorHints(hints);
   if (propagator !== undefined) options.propagator = propagator;
@@ -39,6 +40,6 @@ export function sheetOptions(request: AnalysisRequest): SheetOptions {
 
 export const realEngines: EngineSet = {
   compile: (model, overrides) => compileModel(model, overrides),
-  sheet: (compiled, request) => analyseSheet(compiled.drive, sheetOptions(request)),
+  sheet: (compiled, request) => analyseSheet(compiled.drive, { ...sheetOptions(request), symmetries: compiled.symmetries }),
   chain: (compiled, request) => analyseChainView(compiled, request),
 };

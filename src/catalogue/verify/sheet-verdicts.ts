@@ -14,11 +14,12 @@ import type { NormalizedClaim } from './claims.ts';
 import { gapKey } from './claims.ts';
 import type { CountObservation, SettledInteger } from './evidence.ts';
 import { countAtTwoSizes, countEvidence, judgeEstimate } from './evidence.ts';
-import { formatQuasienergy } from './format.ts';
+import { formatNumber, formatQuasienergy, formatRawValue } from './format.ts';
 import type { VerdictPolicy } from './policy.ts';
 import { gapTolerance } from './policy.ts';
 import type { Alternative, Verdict } from './verdict.ts';
 import { integerVerdict } from './verdict.ts';
+import { residualEntries, symmetryClassVerdict, symmetryFor, symmetryVerdict } from './symmetry-verdicts.ts';
 
 const SAME = 1e-6;
 
@@ -72,7 +73,8 @@ export function noGapReason(source: Pick<GapSource, 'gaps' | 'bands'>, label: nu
   const where = band
     ? `; it lies in band group ${band.index} (quasienergies ${band.range[0].toFixed(3)} to ${band.range[1].toFixed(3)} π/T)`
     : '';
-  return `no open gap contains ${formatQuasienergy(label)}${where}; open gaps: ${open.length > 0 ? open.join(', ') : 'none'}`;
+  const remedy = open.length > 0 ? 'name the gap by a quasienergy inside one of the open gaps' : 'move the parameter point to where a gap opens';
+  return `no open gap contains ${formatQuasienergy(label)}${where}; open gaps: ${open.length > 0 ? open.join(', ') : 'none'}; to settle, ${remedy}`;
 }
 
 function missingGap(source: GapSource, label: number, stage: string): SettledInteger {
@@ -89,23 +91,46 @@ function adjacentWidth(bands: BandGroupReport[], label: number): number {
   return width;
 }
 
-/** The engine's own gap tolerance (model numerics.tolerances.gap) raises the policy floor, never lowers it. */
+/** Below this fraction of the adjacent bandwidth a gap is "small": the point sits at or near a phase transition. */
+export const TRANSITION_FRACTION = 0.01;
+
+/** The engine's results a gap verdict reads. */
 export interface GapSource {
   gaps: GapReport[];
   bands: BandGroupReport[];
   grid: number[];
+  /** The engine's gap tolerance (the model's numerics.tolerances.gap, else the engine default), units π/T. */
   gapTolerance?: number;
-  /** Largest band velocity (units π/T per unit of reduced momentum) when the engine reports it; else π × band width is used. */
-  velocity?: number;
+  /** Width of the quasienergy bands next to a gap (units π/T) when the source has no band groups (chains). */
+  bandwidth?: number;
 }
 
+/**
+ * A gap is open for verdicts when the engine's certified lower bound of its
+ * minimal direct gap exceeds the tolerance (policy.ts, gapTolerance); the
+ * refined minimum and the bound both go into the certificate. A gap without a
+ * certified bound is never open.
+ */
 export function gapEvidence(portrait: GapSource, label: number, policy: VerdictPolicy): GapEvidence {
-  const floor = Math.max(policy.gapFloor, portrait.gapTolerance ?? 0);
+  const tolerance = gapTolerance(policy, portrait.gapTolerance);
   const gap = findGap(portrait.gaps, label);
-  if (!gap) return { gap: label, minimalGap: 0, at: [], tolerance: floor, open: false };
-  const width = portrait.velocity !== undefined ? portrait.velocity / Math.PI : adjacentWidth(portrait.bands, gap.label);
-  const tolerance = gapTolerance({ ...policy, gapFloor: floor }, width, portrait.grid);
-  return { gap: gap.label, minimalGap: gap.minimalGap, at: [...gap.momentumAtMinimum], tolerance, open: gap.open && gap.minimalGap > tolerance };
+  if (!gap) return { gap: label, minimalGap: 0, at: [], lowerBound: 0, bound: 'none', evaluations: 0, nearTransition: false, tolerance, open: false };
+  const c = gap.certified;
+  const lowerBound = c ? c.lower : 0;
+  // A gap that is not open has no band groups beside it: the group it lies in stands for its bands.
+  const around = portrait.bands.filter((b) => bandContains(b, gap.label)).map((b) => rangeWidth(b.range));
+  const bandwidth = portrait.bandwidth ?? Math.max(adjacentWidth(portrait.bands, gap.label), ...around);
+  return {
+    gap: gap.label,
+    minimalGap: gap.minimalGap,
+    at: [...gap.momentumAtMinimum],
+    lowerBound,
+    bound: c ? c.status : 'none',
+    evaluations: c ? c.evaluations : 0,
+    nearTransition: bandwidth > 0 && gap.minimalGap < TRANSITION_FRACTION * bandwidth,
+    tolerance,
+    open: gap.open && c !== undefined && lowerBound > tolerance,
+  };
 }
 
 /** Band groups ordered upward from the gap `cut` (following gapAbove links), or null if the cut is not a gap edge. */
@@ -126,7 +151,15 @@ function windingEvidence(p: SheetPortrait, label: number, policy: VerdictPolicy)
   const gap = findGap(p.gaps, label);
   if (!gap) return missingGap(p, label, 'winding');
   const report = gap ? p.windings.find((w) => sameLabel(w.gap, gap.label)) : undefined;
-  return judgeEstimate(report?.winding, [gapEvidence(p, label, policy)], policy, 'winding');
+  const ev = judgeEstimate(report?.winding, [gapEvidence(p, label, policy)], policy, 'winding');
+  const q = report?.quadrature;
+  if (q) {
+    ev.certificate.notes.push(
+      `adaptive Gauss–Kronrod quadrature: ${q.evaluations} evaluations on ${q.cells} cells (first mesh ${q.meshCells}), error estimate ${formatNumber(q.errorEstimate)}, ` +
+        `raw value ${formatRawValue(q.raw)}; ${q.timeNodes} time nodes over the period (a quarter more per piece changes the density by ${formatNumber(q.timeRuleChange)}, relative)`,
+    );
+  }
+  return ev;
 }
 
 function chernEvidence(p: SheetPortrait, band: BandGroupReport, policy: VerdictPolicy): SettledInteger {
@@ -135,10 +168,10 @@ function chernEvidence(p: SheetPortrait, band: BandGroupReport, policy: VerdictP
   const c = band.chern;
   if (c) {
     ev.certificate.notes.push(
-      `largest plaquette flux ${c.maxPlaquetteFlux.toPrecision(3)} rad (bound ${c.fluxThreshold.toPrecision(3)}), smallest link modulus ${c.minimalLinkModulus.toPrecision(3)}`,
+      `largest plaquette flux ${formatNumber(c.maxPlaquetteFlux)} rad (bound ${formatNumber(c.fluxThreshold)}), smallest link modulus ${formatNumber(c.minimalLinkModulus)}`,
     );
   }
-  if (band.touching) ev.certificate.notes.push(`${band.branches} touching branches grouped (smallest internal gap ${band.minimalInternalGap.toPrecision(3)} π/T)`);
+  if (band.touching) ev.certificate.notes.push(`${band.branches} touching branches grouped (smallest internal gap ${formatNumber(band.minimalInternalGap)} π/T)`);
   return ev;
 }
 
@@ -232,12 +265,12 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
           // touch and merge into one group): the band a claim names is then not a band computed.
           const why = !ordered
             ? `the cut must be an open gap, but ${noGapReason(p, claim.cut)}`
-            : `the file claims ${claimedBands} band(s) above the cut at ${formatQuasienergy(claim.cut)}, but ${ordered.length} band group(s) lie between open gaps (bands that touch count as one group; open gaps: ${p.gaps.filter((g) => g.open).map((g) => formatQuasienergy(g.label)).join(', ') || 'none'})`;
+            : `the file claims ${claimedBands} band(s) above the cut at ${formatQuasienergy(claim.cut)}, but ${ordered.length} band group(s) lie between open gaps (bands that touch count as one group; open gaps: ${p.gaps.filter((g) => g.open).map((g) => formatQuasienergy(g.label)).join(', ') || 'none'}); to settle, claim one Chern number per band group, or move the parameter point to where the gaps between the claimed bands open`;
           certificate.notes.push(why);
           verdicts.push({
             claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.cut, outcome: 'unsettled', claimed: claim.value,
-            computed: null, estimate: null, message: `The Chern number of band ${claim.band} above the cut is ill-defined: ${why}.`,
-            hint: 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch', certificate,
+            computed: null, estimate: null, message: `The Chern number of band ${claim.band + 1} above the cut is ill-defined: ${why}.`,
+            hint: 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch (see the gaps in the certificate)', certificate,
           });
           break;
         }
@@ -249,7 +282,7 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
           const v = chernEvidence(p, b, policy).value;
           if (v !== null) alternatives.push({ value: v, hint: `this value belongs to band ${i} above the cut (quasienergies ${b.range[0].toFixed(3)} to ${b.range[1].toFixed(3)} π/T)` });
         });
-        verdicts.push(integerVerdict(claim, claim.cut, `The Chern number of band ${claim.band} above the cut at ${formatQuasienergy(claim.cut)}`, ev, alternatives));
+        verdicts.push(integerVerdict(claim, claim.cut, `The Chern number of band ${claim.band + 1} above the cut at ${formatQuasienergy(claim.cut)}`, ev, alternatives));
         break;
       }
       case 'minimal-gap':
@@ -258,7 +291,11 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
       case 'anomalous':
         break; // judged from the whole portrait (analyse-point.ts)
       case 'symmetry':
-        break; // the two-dimensional engine computes no symmetry residuals (docs/model-format.md, Claims)
+        verdicts.push(symmetryVerdict(claim, symmetryFor(residualEntries(p.symmetries, [claim.symmetry]), policy)));
+        break;
+      case 'symmetry-class':
+        verdicts.push(symmetryClassVerdict(claim, p.symmetryClass, residualEntries(p.symmetries, ['chiral', 'particle-hole', 'time-reversal']), policy));
+        break;
       default:
         verdicts.push(notApplicable(claim, 'a two-dimensional model'));
     }
@@ -274,7 +311,7 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
     if (!b.chern) continue;
     const id = `band-${b.index}/chern`;
     const claimed = claims.some((c) => c.kind === 'chern' && bandsFromCut(p.bands, c.cut)?.[c.band] === b);
-    entries.push(entry(id, 'chern', null, `Chern number of band ${b.index} (${b.range[0].toFixed(3)} to ${b.range[1].toFixed(3)} π/T)`, chernEvidence(p, b, policy), claimed));
+    entries.push(entry(id, 'chern', null, `Chern number of band ${b.index + 1} above the cut (${b.range[0].toFixed(3)} to ${b.range[1].toFixed(3)} π/T)`, chernEvidence(p, b, policy), claimed));
   }
   for (const r of p.ribbons) {
     for (const c of r.counts) {
@@ -304,12 +341,12 @@ export function minimalGapVerdict(claim: NormalizedClaim & { kind: 'minimal-gap'
   const base = { claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.gap, claimed: claim.value, estimate: g.minimalGap, certificate };
   const what = `The minimal gap at ${formatQuasienergy(claim.gap)}`;
   if (!g.open && claim.value > g.tolerance && g.minimalGap <= g.tolerance) {
-    return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is closed (${g.minimalGap.toPrecision(3)} π/T), but the file claims ${claim.value} π/T.`, hint: 'the parameter point may lie on a phase boundary' };
+    return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is closed (${formatNumber(g.minimalGap)} π/T), but the file claims ${claim.value} π/T.`, hint: 'the parameter point may lie on a phase boundary' };
   }
   if (certificate.residual <= tolerance) {
-    return { ...base, outcome: 'confirmed', computed: g.minimalGap, message: `${what} is ${g.minimalGap.toPrecision(4)} π/T, within ${tolerance.toPrecision(3)} of the claimed ${claim.value} π/T.`, hint: null };
+    return { ...base, outcome: 'confirmed', computed: g.minimalGap, message: `${what} is ${formatNumber(g.minimalGap)} π/T (certified ≥ ${formatNumber(g.lowerBound)}), within ${formatNumber(tolerance)} of the claimed ${claim.value} π/T.`, hint: null };
   }
-  return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is ${g.minimalGap.toPrecision(4)} π/T, but the file claims ${claim.value} π/T (tolerance ${tolerance.toPrecision(3)}).`, hint: null };
+  return { ...base, outcome: 'contradicted', computed: g.minimalGap, message: `${what} is ${formatNumber(g.minimalGap)} π/T (certified ≥ ${formatNumber(g.lowerBound)}), but the file claims ${claim.value} π/T (tolerance ${formatNumber(tolerance)}).`, hint: null };
 }
 
 export function notApplicable(claim: NormalizedClaim, where: string): Verdict {

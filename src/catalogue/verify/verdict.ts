@@ -26,11 +26,11 @@ export interface Verdict {
   /** Gap label (units π/T) the claim is about, when it is about a gap. */
   gap: number | null;
   outcome: VerdictOutcome;
-  claimed: number | boolean;
+  claimed: number | boolean | string;
   /** Settled computed value; null when unsettled. */
-  computed: number | boolean | null;
+  computed: number | boolean | string | null;
   /** The nearest integer or value computed even when unsettled (for display), else null. */
-  estimate: number | boolean | null;
+  estimate: number | boolean | string | null;
   /** One plain sentence: what was found. */
   message: string;
   /** A likely cause or next step, when one is recognisable. */
@@ -108,13 +108,14 @@ export function integerVerdict(
   };
 }
 
+/** The first remedy a reason names ("to settle, …"), else a recognised cause. */
 function unsettledHint(reasons: string[]): string | null {
+  for (const r of reasons) {
+    const m = /to settle, ([^;]+)/.exec(r);
+    if (m) return m[1].replace(/\.$/, '');
+  }
   const text = reasons.join(' ');
   if (/no open gap contains/.test(text)) return 'name a gap by a quasienergy inside it (units π/T): pick one of the open gaps listed';
   if (/no chiral or particle–hole symmetry is declared/.test(text)) return 'declare the symmetry the invariant rests on in claims.symmetries (chiral operator with symmetricTimes, or particleHole)';
-  if (/at (ribbon width|chain length) \d+ the count|count changed with the/.test(text)) return 'the count depends on the system size: raise numerics.ribbon.width or numerics.chainLength well beyond the decay length';
-  if (/gap at/.test(text)) return 'the model may sit at or near a phase transition; move the parameter point away from it or raise numerics.kGrid';
-  if (/ribbon/.test(text)) return 'widen the ribbon (numerics.ribbon.width) well beyond the edge-state decay length';
-  if (/refinement|tolerance|single grid/.test(text)) return 'raise numerics.kGrid or numerics.timeSlices so that refinement can settle the integer';
   return null;
 }

@@ -7,8 +7,8 @@
  */
 import type { Diagnostic } from '../diagnostics.ts';
 import type { LoadedModel } from '../load.ts';
+import { diagnosticFor } from '../load.ts';
 import { CompileError } from '../compile.ts';
-import { offsetOfIssue, parseWithPositions, positionOf } from '../json-positions.ts';
 import type { Quantity } from '../model-types.generated.ts';
 import { evaluateQuantity, isIssue } from '../parameters.ts';
 import type { ModelRecord, ModelTimings } from '../records/model-record.ts';
@@ -40,12 +40,7 @@ class QuantityProblem extends Error {
 }
 
 function locatedDiagnostic(loaded: LoadedModel, pointer: string, message: string, hint?: string, offsetInString?: number): Diagnostic {
-  const { document } = parseWithPositions(loaded.source);
-  const issue = { pointer, message, ...(hint !== undefined ? { hint } : {}), ...(offsetInString !== undefined ? { offsetInString } : {}) };
-  const { line, column } = positionOf(document, offsetOfIssue(document, issue));
-  const d: Diagnostic = { file: loaded.file, line, column, pointer, message, severity: 'error' };
-  if (hint !== undefined) d.hint = hint;
-  return d;
+  return diagnosticFor(loaded.file, loaded.source, { pointer, message, ...(hint !== undefined ? { hint } : {}), ...(offsetInString !== undefined ? { offsetInString } : {}) });
 }
 
 export function quantityEvaluator(parameters: Record<string, number>) {
@@ -161,6 +156,7 @@ export function verifyModel(
     engine,
     id: loaded.id,
     file: loaded.file,
+    sourceHash: loaded.sourceHash,
     status,
     statusReason: reason,
     model: modelMetadata(doc),
@@ -174,6 +170,7 @@ export function verifyModel(
     sweeps: sweepRecords,
     diagnostics: loaded.warnings.map(recordDiagnostic),
     incident: null,
+    budget: null,
   };
   return { record, timings: timing(stages) };
 }

@@ -4,9 +4,9 @@
  * - Size defaults to os.availableParallelism(); size 0 runs tasks in the
  *   calling thread. A busy thread cannot be interrupted from inside, so when a
  *   time limit is given, size 0 becomes one worker thread: the limit always holds.
- * - Each task gets a time limit counted from the moment a ready worker takes
- *   it; on expiry the worker is terminated, the task is reported as timed out
- *   and a fresh worker takes the next task.
+ * - Each task gets a time limit (one for all, or one per task) counted from
+ *   the moment a ready worker takes it; on expiry the worker is terminated, the
+ *   task is reported as timed out and a fresh worker takes the next task.
  * - A task that throws is reported with its message; a worker that dies
  *   (uncaught error, out of memory, process.exit) is reported as crashed for
  *   the task it was running, and replaced. The other tasks always finish.
@@ -32,8 +32,8 @@ export interface PoolOptions {
   entry: string;
   /** Number of worker threads; 0 runs in the calling thread. Default os.availableParallelism(). */
   size?: number;
-  /** Per-task time limit in milliseconds; with a limit, size 0 runs one worker thread instead of the calling thread. */
-  timeLimitMs?: number;
+  /** Time limit in milliseconds, for every task or per task index; with a limit, size 0 runs one worker thread instead of the calling thread. */
+  timeLimitMs?: number | ((index: number) => number);
   /** Called when a task starts and at each progress note it sends. */
   onProgress?: (index: number, step: string) => void;
   /** Called when a task ends, in completion order. */
@@ -72,8 +72,13 @@ async function runInline<T, R>(tasks: T[], options: PoolOptions): Promise<TaskOu
   return outcomes;
 }
 
+function limitOf(options: PoolOptions, index: number): number | undefined {
+  const limit = typeof options.timeLimitMs === 'function' ? options.timeLimitMs(index) : options.timeLimitMs;
+  return limit !== undefined && limit > 0 ? limit : undefined;
+}
+
 export async function runTasks<T, R>(tasks: T[], options: PoolOptions): Promise<TaskOutcome<R>[]> {
-  const limited = options.timeLimitMs !== undefined && options.timeLimitMs > 0;
+  const limited = tasks.some((_, i) => limitOf(options, i) !== undefined);
   const requested = options.size ?? defaultPoolSize();
   const size = Math.min(requested <= 0 && limited ? 1 : requested, tasks.length);
   if (tasks.length === 0) return [];
@@ -115,8 +120,8 @@ export async function runTasks<T, R>(tasks: T[], options: PoolOptions): Promise<
         current = next++;
         started = performance.now();
         options.onProgress?.(current, 'started');
-        if (options.timeLimitMs !== undefined && options.timeLimitMs > 0) {
-          const limit = options.timeLimitMs;
+        const limit = limitOf(options, current);
+        if (limit !== undefined) {
           const index = current;
           timer = setTimeout(() => {
             retire();

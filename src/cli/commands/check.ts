@@ -21,7 +21,8 @@ ${describeCheckOptions}
 
 With --validate-only the claims are not recomputed; one line per model:
   ✓ id  file                                        the model is valid
-  ✗ file:line:column  pointer  message  (hint)      one line per problem
+  ✗ file:line:column  pointer  message  (hint)      one line per error
+    warning: file:line:column  pointer  message    one line per warning (the model still loads)
 
 Arguments:
   paths…     model files or folders (folders are scanned for *.json); default: models
@@ -69,7 +70,9 @@ Examples:
         for (const w of model.warnings) io.stdout(`  ${formatDiagnostic(w)}\n`);
       }
       for (const failure of report.failures) {
-        for (const d of failure.diagnostics) io.stdout(`✗ ${formatDiagnostic(d)}\n`);
+        // Errors carry the ✗; warnings of the same file are listed under them, marked as warnings.
+        for (const d of failure.diagnostics.filter((x) => x.severity === 'error')) io.stdout(`✗ ${formatDiagnostic(d)}\n`);
+        for (const d of failure.diagnostics.filter((x) => x.severity === 'warning')) io.stdout(`  ${formatDiagnostic(d)}\n`);
       }
       const noun = checked === 1 ? 'model' : 'models';
       io.stdout(`${checked} ${noun} checked: ${report.models.length} valid, ${report.failures.length} invalid\n`);

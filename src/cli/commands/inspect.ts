@@ -7,6 +7,8 @@ import { inspectModel, ModelNotFoundError } from '../../catalogue/verify/inspect
 import type { Certificate } from '../../catalogue/verify/certificate.ts';
 import type { CliIO } from './verify-summary.ts';
 import { canonicalJson } from '../../catalogue/records/canonical-json.ts';
+import { ANOMALOUS_LABEL, STATUS_LABEL, quantityName } from '../../catalogue/vocabulary.ts';
+import { formatGrid, formatNumber, formatRefinementStep } from '../../catalogue/verify/format.ts';
 
 export const describe = `strobe inspect <id | file> [--no-cache] [--json]
   Verifies one model and shows its quasienergy gaps, bands, invariants and the
@@ -21,29 +23,32 @@ function table(rows: string[][]): string[] {
   return rows.map((r) => '  ' + r.map((cell, c) => cell.padEnd(widths[c])).join('  ').trimEnd());
 }
 
-export function certificateLine(c: Certificate): string {
+/** The evidence of one certificate: one line of grid, residual, gaps and symmetries, then the refinement history one level per line. */
+export function certificateLines(c: Certificate): string[] {
   const parts: string[] = [];
-  if (c.grid.length > 0) parts.push(`grid ${c.grid.join('×')}`);
-  if (c.residual !== null) parts.push(`|x − round x| ${c.residual.toExponential(1)} (tol ${num(c.residualTolerance)})`);
-  if (c.refinement.length > 0) parts.push(`refinement ${c.refinement.map((s) => `${s.grid.join('×')}:${num(s.value === null ? null : Number(s.value.toPrecision(6)))}`).join(' → ')}`);
-  for (const g of c.gaps) parts.push(`gap at ${q(g.gap)} ${g.minimalGap.toPrecision(3)} (tol ${g.tolerance.toPrecision(3)}${g.open ? '' : ', closed'})`);
-  for (const s of c.symmetry) parts.push(`${s.name} ${s.residual === null ? '—' : s.residual.toExponential(1)} (tol ${s.tolerance.toExponential(0)})`);
-  return parts.join('; ');
+  const n = (x: number | null) => (x === null ? '—' : formatNumber(x));
+  if (c.grid.length > 0) parts.push(c.stage === 'winding' ? `adaptive quadrature, ${c.grid[0]} evaluations` : `grid ${formatGrid(c.grid)}`);
+  if (c.residual !== null) parts.push(`|x − round x| ${n(c.residual)} (tol ${n(c.residualTolerance)})`);
+  for (const g of c.gaps) parts.push(`gap at ${q(g.gap)} ${n(g.minimalGap)} (certified ≥ ${n(g.lowerBound ?? 0)}, tol ${n(g.tolerance)}${g.open ? '' : ', not open'})`);
+  for (const s of c.symmetry) parts.push(`${s.name} ${n(s.residual)} (tol ${n(s.tolerance)})`);
+  const lines = parts.length > 0 ? [`evidence: ${parts.join('; ')}`] : [];
+  if (c.refinement.length > 0) lines.push('refinement:', ...c.refinement.map((step) => `  ${formatRefinementStep(step)}`));
+  return lines;
 }
 
 export function formatInspection(record: ModelRecord, timings: ModelTimings): string {
   const lines: string[] = [];
   lines.push(`${record.id} — ${record.model?.title ?? '(did not load)'}`);
-  lines.push(`file ${record.file}; status ${record.status}: ${record.statusReason}`);
+  lines.push(`file ${record.file}; status ${STATUS_LABEL[record.status]}: ${record.statusReason}`);
   if (record.drive) {
     const d = record.drive;
     lines.push(`drive: period ${num(d.period)}, ${d.segments.length} segment(s), states ${d.states.join(', ')}${d.nambu ? ' (Nambu)' : ''}${d.handedness === 'n/a' ? '' : `, basis ${d.handedness}-handed`}`);
   }
   const a = record.analysis;
   if (a) {
-    lines.push(`${a.kind} engine, k grid ${a.grid.join('×')}, propagator accuracy ${a.propagatorAccuracy === null ? '—' : a.propagatorAccuracy.toExponential(1)}`);
+    lines.push(`${a.kind} engine, k grid ${a.grid.join('×')}, propagator accuracy ${a.propagatorAccuracy === null ? '—' : formatNumber(a.propagatorAccuracy)}`);
     lines.push('', 'Gaps (quasienergies in units of π/T)');
-    lines.push(...table([['gap', 'arc', 'minimal gap', 'at', 'tolerance', 'open'], ...a.gaps.map((g) => [q(g.label), `${g.lower.toFixed(3)} … ${g.upper.toFixed(3)}`, g.minimalGap.toPrecision(4), `(${g.at.map((s) => s.toFixed(3)).join(', ')})`, g.tolerance.toPrecision(3), g.open ? 'yes' : 'no'])]));
+    lines.push(...table([['gap', 'arc', 'minimal gap', 'certified ≥', 'at', 'tolerance', 'open'], ...a.gaps.map((g) => [q(g.label), `${g.lower.toFixed(3)} … ${g.upper.toFixed(3)}`, g.minimalGap.toPrecision(4), formatNumber(g.lowerBound ?? 0), `(${g.at.map((s) => s.toFixed(3)).join(', ')})`, formatNumber(g.tolerance), g.open ? 'yes' : 'no'])]));
     if (a.bands.length > 0) {
       lines.push('', 'Band groups');
       lines.push(...table([['#', 'range', 'branches', 'between gaps'], ...a.bands.map((b) => [String(b.index), `${b.range[0].toFixed(3)} … ${b.range[1].toFixed(3)}`, String(b.branches), `${q(b.gapBelow)} and ${q(b.gapAbove)}`])]));
@@ -52,11 +57,11 @@ export function formatInspection(record: ModelRecord, timings: ModelTimings): st
   if (record.claims.length > 0) {
     lines.push('', 'Claims');
     for (const v of record.claims) {
-      lines.push(`  ${v.claim}: ${v.outcome} (claimed ${String(v.claimed)}, computed ${v.computed === null ? '—' : String(v.computed)})`);
+      const name = quantityName(v.claim, { symmetryClass: record.model?.symmetryClass, cut: v.kind === 'chern' ? v.gap : null }).words;
+      lines.push(`  ${name} [${v.claim}]: ${v.outcome} (claimed ${String(v.claimed)}, computed ${v.computed === null ? '—' : String(v.computed)})`);
       lines.push(`    ${v.message}`);
       if (v.hint) lines.push(`    hint: ${v.hint}`);
-      const cert = certificateLine(v.certificate);
-      if (cert) lines.push(`    evidence: ${cert}`);
+      lines.push(...certificateLines(v.certificate).map((line) => `    ${line}`));
     }
   }
   const unclaimed = record.portrait.filter((e) => !e.claimed);
@@ -64,7 +69,7 @@ export function formatInspection(record: ModelRecord, timings: ModelTimings): st
     lines.push('', 'Computed but not claimed');
     for (const e of unclaimed) lines.push(`  ${e.label}: ${e.settled ? String(e.value) : `unsettled (nearest ${num(e.estimate)})`}`);
   }
-  lines.push('', `anomalous: ${record.anomalous.classification} — ${record.anomalous.reason}`);
+  lines.push('', `anomalous phase: ${ANOMALOUS_LABEL[record.anomalous.classification]} — ${record.anomalous.reason}`);
   for (const s of record.sweeps) lines.push(`sweep ${s.name}: ${s.points.length} point(s) over ${s.axes.map((x) => x.parameter).join(' × ')}`);
   for (const d of record.diagnostics) lines.push(`${d.severity}: ${d.file}:${d.line}:${d.column} ${d.pointer} ${d.message}${d.hint ? ` (${d.hint})` : ''}`);
   lines.push('', timings.cached ? 'taken from the cache (unchanged since the last run)' : `computed in ${(timings.totalMs / 1000).toFixed(2)} s`);

@@ -15,6 +15,7 @@ export function minimalModel(id: string, today: string): string {
     summary: 'One-orbital chain with nearest-neighbour hopping; replace with your model.',
     description: 'Describe the model here. TeX math works: $H(k) = 2t\\cos k$.',
     tags: ['draft'],
+    draft: true,
     maintainers: ['Your Name (Your Group)'],
     references: [],
     dates: { created: today },
@@ -34,7 +35,9 @@ export const newCommand: Command = {
   summary: 'create models/<id>.json from a minimal valid model',
   usage: 'strobe new [--dir folder] <id>',
   help: `Writes a minimal valid model (a static one-orbital chain) to models/<id>.json.
-Refuses to overwrite an existing file.
+Refuses to overwrite an existing file. The file is marked "draft": true: strobe
+check verifies it like any model, but the site leaves it out until you remove
+that line.
 
 Arguments:
   id           kebab-case identifier: lower-case letters and digits, single hyphens (e.g. driven-ladder)
@@ -88,7 +91,7 @@ Exit codes: 0 written, 1 file exists or cannot be written, 2 usage error (missin
       } else io.stderr(`strobe new: cannot write ${path.relative(io.cwd, file)}: ${code ?? (error as Error).message}\n`);
       return EXIT_FAILED;
     }
-    io.stdout(`wrote ${path.relative(io.cwd, file)}\nnext: edit it, then run "strobe check ${path.relative(io.cwd, file)}"\n`);
+    io.stdout(`wrote ${path.relative(io.cwd, file)} (a draft: not published on the site until you remove "draft": true)\nnext: edit it, then run "strobe check ${path.relative(io.cwd, file)}"\n`);
     return EXIT_OK;
   },
 };

@@ -9,17 +9,20 @@
  */
 import { readFileSync, writeFileSync, mkdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
+import { formatDiagnostic } from '../../catalogue/diagnostics.ts';
 import type { CatalogueReport, ProgressEvent } from '../../catalogue/verify/catalogue.ts';
 import { verifyCatalogue } from '../../catalogue/verify/catalogue.ts';
-import type { CatalogueSummary, ModelRecord, ModelStatus } from '../../catalogue/records/model-record.ts';
+import type { CatalogueSummary, ModelRecord } from '../../catalogue/records/model-record.ts';
 import { canonicalJson } from '../../catalogue/records/canonical-json.ts';
-import { writeResults } from '../../catalogue/records/write.ts';
+import { finishResults, removeStaleTemporaries, writeRecordFile } from '../../catalogue/records/write.ts';
+import { DEFAULT_MEMORY_LIMIT_BYTES, DEFAULT_TIME_LIMIT_SECONDS } from '../../catalogue/budget/limits.ts';
 import { mergeSummaries, MergeError } from '../../catalogue/records/summary.ts';
 import { reportProblems } from '../../catalogue/records/report-validation.ts';
 import { exitCodeFor } from '../../catalogue/verify/status.ts';
 import { junitXml, type JunitSuite } from '../../catalogue/junit.ts';
 import { parseShard, ShardSpecError, type ShardSpec } from '../../catalogue/shard.ts';
 import { modelStatusOfStep } from '../../catalogue/workers/status-step.ts';
+import { ANOMALOUS_LABEL, STATUS_LABEL, STATUS_ORDER, count, quantityName } from '../../catalogue/vocabulary.ts';
 
 /** Where commands write: process.stdout / process.stderr fit this shape. */
 export interface CliIO {
@@ -34,7 +37,8 @@ export interface CheckOptions {
   workers?: number;
   cache: boolean;
   shard?: ShardSpec;
-  timeLimitMs?: number;
+  timeLimitSeconds?: number;
+  memoryLimitBytes?: number;
   strict: boolean;
   json: boolean;
   junit?: string;
@@ -43,15 +47,23 @@ export interface CheckOptions {
 
 export const describeCheckOptions = `Options of strobe check (verification):
   --workers N      worker threads (default: number of cores; 0 = run in this process,
-                   except with --time-limit, which needs a worker thread: then one is used)
+                   where no time limit can stop a model: the work estimate still refuses
+                   what is too large, and with --time-limit one worker thread is used)
   --no-cache       recompute every model (default: reuse .strobe-cache/ for unchanged models)
   --shard i/n      verify only shard i of n (split by a hash of the model id) for parallel CI jobs
-  --time-limit S   give up on a model after S seconds and report it as failed (enforced
-                   for every --workers value: the model runs in a worker thread)
+  --time-limit S   time limit per model, seconds, for every model (default: the model's
+                   numerics.timeLimit, else ${DEFAULT_TIME_LIMIT_SECONDS} s). A model whose estimated work
+                   exceeds it is refused before computing, naming the field and the
+                   estimate; one that runs over it is stopped and reported as failed
+                   (models run in worker threads, so the limit holds for every --workers)
+  --memory-limit MB  memory budget per model (default ${DEFAULT_MEMORY_LIMIT_BYTES / 1e6}); a model whose
+                   estimated memory exceeds it is refused
   --strict         also fail when a model is unsettled
   --json           print the catalogue summary as JSON instead of the table
   --junit FILE     also write a JUnit XML report (one test case per claim)
-  --out DIR        where results records go (default results)
+  --out DIR        where results records go (default results). Each model's record is
+                   written as soon as it finishes; checking some files replaces only
+                   their records, and results/catalogue.json summarises every record
 Exit status: 0 when no model is disputed, invalid or failed; 1 otherwise; 2 on a usage error.`;
 
 function takeValue(argv: string[], i: number, flag: string): string {
@@ -94,7 +106,14 @@ export function parseCheckOptions(argv: string[]): CheckOptions {
         const v = value();
         const s = Number(v);
         if (!Number.isFinite(s) || s <= 0) throw new UsageError(`--time-limit expects seconds > 0, got "${v}"`);
-        o.timeLimitMs = Math.round(s * 1000);
+        o.timeLimitSeconds = s;
+        break;
+      }
+      case '--memory-limit': {
+        const v = value();
+        const mb = Number(v);
+        if (!Number.isFinite(mb) || mb <= 0) throw new UsageError(`--memory-limit expects megabytes > 0, got "${v}"`);
+        o.memoryLimitBytes = mb * 1e6;
         break;
       }
       case '--strict':
@@ -119,23 +138,53 @@ export function parseCheckOptions(argv: string[]): CheckOptions {
 
 const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
 
+/** Steps that end a model's run. */
+const FINISHED_STEPS = new Set(['done', 'cached', 'timed-out', 'crashed', 'threw', 'over-budget']);
+
+/** What a finished model's line says after its name. */
+function finishedText(step: string, status: string | undefined, elapsedMs: number): string {
+  if (step === 'cached') return 'cached (unchanged)';
+  if (step === 'over-budget') return 'refused: estimated work over its limits';
+  if (step === 'done') return `${status ?? 'done'} in ${seconds(elapsedMs)}`;
+  return `${step} ${seconds(elapsedMs)}`;
+}
+
 /**
  * Progress reporter: on a terminal, one line rewritten in place with the model
  * being computed, its step and the elapsed time (refreshed twice a second);
  * otherwise one plain line per finished model with its status
- * ("[1/1] kick-qwz: unsettled in 4.0 s"), which logs read well.
+ * ("[1/1] kick-qwz: unsettled in 4.0 s"), which logs read well, and every
+ * `heartbeatMs` (10 s) a line per model still running, so that a log never
+ * falls silent for long.
  */
-export function progressReporter(io: CliIO, refreshMs = 500): { onProgress: (e: ProgressEvent) => void; finish: () => void } {
+export function progressReporter(io: CliIO, refreshMs = 500, heartbeatMs = 10_000): { onProgress: (e: ProgressEvent) => void; finish: () => void } {
   const tty = io.stdout.isTTY === true;
   let done = 0;
   let width = 0;
   let current: { event: ProgressEvent; at: number } | undefined;
   let timer: NodeJS.Timeout | undefined;
+  const running = new Map<string, { event: ProgressEvent; at: number }>();
   const statuses = new Map<string, string>();
   const render = (e: ProgressEvent, extraMs = 0) => {
     const line = `[${done}/${e.total}] ${e.id}: ${e.step} ${seconds(e.elapsedMs + extraMs)}`;
     io.stdout.write(`\r${line.padEnd(width)}`);
     width = line.length;
+  };
+  const heartbeat = () => {
+    const now = performance.now();
+    for (const { event, at } of running.values()) {
+      io.stdout.write(`[${done}/${event.total}] ${event.id}: still running (${event.step}), ${seconds(event.elapsedMs + now - at)}\n`);
+    }
+  };
+  const startTimer = () => {
+    if (timer) return;
+    const every = tty ? refreshMs : heartbeatMs;
+    if (every <= 0) return;
+    timer = setInterval(() => {
+      if (!tty) heartbeat();
+      else if (current) render(current.event, performance.now() - current.at);
+    }, every);
+    timer.unref();
   };
   return {
     onProgress(e) {
@@ -144,23 +193,18 @@ export function progressReporter(io: CliIO, refreshMs = 500): { onProgress: (e: 
         statuses.set(e.id, status);
         return;
       }
-      const finished = e.step === 'done' || e.step === 'cached' || e.step === 'timed-out' || e.step === 'crashed' || e.step === 'threw';
-      if (finished) done++;
+      const finished = FINISHED_STEPS.has(e.step);
+      if (finished) {
+        done++;
+        running.delete(e.id);
+      } else running.set(e.id, { event: e, at: performance.now() });
       if (tty) {
         render(e);
         current = finished ? undefined : { event: e, at: performance.now() };
-        if (!timer && refreshMs > 0) {
-          timer = setInterval(() => {
-            if (current) render(current.event, performance.now() - current.at);
-          }, refreshMs);
-          timer.unref();
-        }
       } else if (finished) {
-        // A finished model is named with its status ("unsettled in 4.0 s"), when its task reported one.
-        const status = statuses.get(e.id);
-        const what = e.step === 'done' ? `${status ?? 'done'} in` : e.step;
-        io.stdout.write(`[${done}/${e.total}] ${e.id}: ${what} ${e.step === 'cached' ? '(unchanged)' : seconds(e.elapsedMs)}\n`);
+        io.stdout.write(`[${done}/${e.total}] ${e.id}: ${finishedText(e.step, statuses.get(e.id), e.elapsedMs)}\n`);
       }
+      startTimer();
     },
     finish() {
       if (timer) clearInterval(timer);
@@ -170,15 +214,13 @@ export function progressReporter(io: CliIO, refreshMs = 500): { onProgress: (e: 
   };
 }
 
-const STATUS_ORDER: ModelStatus[] = ['disputed', 'invalid', 'failed', 'unsettled', 'portrait-only', 'verified'];
-
 /** The summary table: one line per model, then totals. */
 export function summaryTable(report: Pick<CatalogueReport, 'records' | 'timings'>): string {
   const rows = report.records.map((r) => [
-    r.id,
-    r.status,
+    r.model?.draft ? `${r.id} (draft)` : r.id,
+    STATUS_LABEL[r.status],
     `${r.counts.confirmed}/${r.counts.contradicted}/${r.counts.unsettled}`,
-    r.anomalous.classification,
+    ANOMALOUS_LABEL[r.anomalous.classification],
     report.timings[r.id]?.cached ? 'cached' : seconds(report.timings[r.id]?.totalMs ?? 0),
   ]);
   const header = ['model', 'status', 'claims ✓/✗/?', 'anomalous', 'time'];
@@ -186,27 +228,33 @@ export function summaryTable(report: Pick<CatalogueReport, 'records' | 'timings'
   const fmt = (row: string[]) => row.map((cell, c) => cell.padEnd(widths[c])).join('  ').trimEnd();
   const lines = [fmt(header), widths.map((w) => '─'.repeat(w)).join('  '), ...rows.map(fmt)];
   const counts = STATUS_ORDER.map((s) => [s, report.records.filter((r) => r.status === s).length] as const).filter(([, n]) => n > 0);
-  lines.push('', `${report.records.length} model(s): ${counts.map(([s, n]) => `${n} ${s}`).join(', ') || 'none'}`);
+  lines.push('', `${count(report.records.length, 'model')}: ${counts.map(([s, n]) => `${n} ${STATUS_LABEL[s]}`).join(', ') || 'none'}`);
+  const drafts = report.records.filter((r) => r.model?.draft).length;
+  if (drafts > 0) lines.push(`${count(drafts, 'draft')} (verified, but not published on the site until "draft": true is removed)`);
   return lines.join('\n') + '\n';
 }
 
-/** What went wrong, model by model: contradictions with hints, unsettled reasons, diagnostics. */
+/** What went wrong, model by model: contradictions with hints, unsettled reasons, diagnostics, and the warnings of every model. */
 export function problemDetails(records: ModelRecord[]): string {
   const out: string[] = [];
   for (const r of records) {
+    const warnings = r.diagnostics.filter((d) => d.severity === 'warning');
     if (r.status === 'invalid') {
       out.push(`${r.id}: invalid`);
-      for (const d of r.diagnostics) out.push(`  ${d.file}:${d.line}:${d.column}  ${d.pointer || '(document)'}  ${d.message}${d.hint ? `  (${d.hint})` : ''}`);
+      for (const d of r.diagnostics) out.push(`  ${formatDiagnostic(d)}`);
     } else if (r.status === 'failed') {
-      out.push(`${r.id}: failed: ${r.incident?.message ?? r.statusReason}`);
+      out.push(`${r.id}: failed${r.incident?.kind === 'over-budget' ? ' (refused before computing)' : `: ${r.incident?.message ?? r.statusReason}`}`);
+      for (const d of r.diagnostics) out.push(`  ${formatDiagnostic(d)}`);
     } else {
       const bad = r.claims.filter((v) => v.outcome !== 'confirmed');
-      if (bad.length === 0) continue;
-      out.push(`${r.id}: ${r.status}`);
+      if (bad.length === 0 && warnings.length === 0) continue;
+      out.push(`${r.id}: ${STATUS_LABEL[r.status]}`);
       for (const v of bad) {
-        out.push(`  ${r.file} ${v.pointer}  ${v.outcome}: ${v.message}`);
+        const name = quantityName(v.claim, { symmetryClass: r.model?.symmetryClass, cut: v.kind === 'chern' ? v.gap : null }).words;
+        out.push(`  ${r.file} ${v.pointer}  ${name}: ${v.outcome}: ${v.message}`);
         if (v.hint) out.push(`    hint: ${v.hint}`);
       }
+      for (const d of warnings) out.push(`  ${formatDiagnostic(d)}`);
     }
   }
   return out.length > 0 ? out.join('\n') + '\n' : '';
@@ -253,15 +301,22 @@ export async function runVerifiedCheck(argv: string[], io: CliIO): Promise<numbe
     throw e;
   }
   const progress = options.json ? undefined : progressReporter(io);
+  removeStaleTemporaries(join(options.out, 'models'));
   const report = await verifyCatalogue(options.paths.length > 0 ? options.paths : ['models'], {
     cache: options.cache,
     ...(options.workers !== undefined ? { workers: options.workers } : {}),
     ...(options.shard ? { shard: options.shard } : {}),
-    ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}),
+    ...(options.timeLimitSeconds !== undefined ? { timeLimitSeconds: options.timeLimitSeconds } : {}),
+    ...(options.memoryLimitBytes !== undefined ? { memoryLimitBytes: options.memoryLimitBytes } : {}),
     ...(progress ? { onProgress: progress.onProgress } : {}),
+    // Each record reaches the disk before its progress line is printed: a killed run keeps what it reported.
+    onRecord: (record) => void writeRecordFile(options.out, record),
   });
   progress?.finish();
-  writeResults(options.out, report.records, report.summary, report.timings, { prune: !options.shard && options.paths.length === 0 });
+  // Only a run over the whole inventory knows which records are no longer wanted.
+  const whole = !options.shard && options.paths.length === 0;
+  const finished = finishResults(options.out, report.summary, report.timings, whole ? { keep: new Set(report.records.map((r) => r.id)) } : {});
+  for (const problem of finished.problems) io.stderr.write(`warning: left out of ${join(options.out, 'catalogue.json')}: ${problem}\n`);
   for (const problem of report.cacheProblems) io.stderr.write(`warning: corrupt cache entry recomputed: ${problem}\n`);
   if (options.junit) writeFileEnsuringDir(options.junit, junitXml('strobe check', junitSuites(report, options.strict)));
   if (options.json) io.stdout.write(canonicalJson(report.summary));
@@ -321,7 +376,7 @@ export async function runMerge(argv: string[], io: CliIO): Promise<number> {
   try {
     const merged = mergeSummaries(parts);
     writeFileEnsuringDir(out, canonicalJson(merged));
-    io.stdout.write(`${merged.models.length} model(s) from ${files.length} shard(s) written to ${out}\n`);
+    io.stdout.write(`${count(merged.models.length, 'model')} from ${count(files.length, 'shard')} written to ${out}\n`);
     return exitCodeFor(merged.models.map((m) => m.status), strict);
   } catch (e) {
     if (e instanceof MergeError) {

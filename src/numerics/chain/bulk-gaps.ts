@@ -22,6 +22,13 @@
  * shows between grid points. The direct gap is polished at its two lowest
  * grid minima.
  *
+ * The grid only proposes candidates. Whether the gap is open is decided on a
+ * certified lower bound of the minimal direct gap over the whole zone
+ * (certified-minimum.ts, with the Lipschitz bound of quasienergies in momentum
+ * from evolution/momentum-lipschitz.ts; the clearance, which must stay
+ * positive for the direct gap to be continuous, guards the bound), reported
+ * with the evaluations it took.
+ *
  * The group velocity max |dε/dk| (quasienergy bands sorted upward from the cut
  * in the larger gap) gives the decay-length estimate ξ ≈ v/clearance (cells)
  * used to size open chains.
@@ -33,6 +40,8 @@ import type { Propagation } from '../evolution/propagator.ts';
 import { floquetOperator, prepareFloquet } from '../evolution/propagator.ts';
 import { UnitaryEigen } from '../linalg/unitary-eigen.ts';
 import type { ChainGapReport } from '../portrait.ts';
+import { certifiedMinimum } from '../certified-minimum.ts';
+import { quasienergyLipschitz } from '../evolution/momentum-lipschitz.ts';
 
 /** A chain's gap at 0 or π/T: the record the chain portrait carries (fields documented in portrait.ts). */
 export type ChainGap = ChainGapReport;
@@ -51,6 +60,10 @@ export interface BulkGapOptions {
   propagator?: PropagatorOptions;
   /** Shared Floquet operators (see floquetCache); a private cache is made when absent. */
   cache?: FloquetCache;
+  /** Gap tolerance (units π/T) the certified lower bound of the minimal direct gap is decided against (default 1e-3). */
+  certifyAbove?: number;
+  /** Most Floquet operators the certified lower bound may evaluate per gap (default 20000). */
+  certificationBudget?: number;
 }
 
 export interface BulkGaps {
@@ -249,6 +262,7 @@ export function bulkGaps(drive: LatticeDrive, options: BulkGapOptions = {}): Bul
     return r.phases;
   };
   const samples = Array.from({ length: n }, (_, j) => at(j / n));
+  const slope = quasienergyLipschitz(drive)[0];
   const clearanceOf = (p: Float64Array, label: 0 | 1): number => {
     const d = boundingDistances(p, label);
     return Math.min(d.above, d.below);
@@ -273,8 +287,24 @@ export function bulkGaps(drive: LatticeDrive, options: BulkGapOptions = {}): Bul
     const down = polishedMinimum(below, gridBelow, n, localMinima(gridBelow).slice(0, 1));
     const clearance = Math.min(up.value, down.value);
     const clearanceMomentum = up.value <= down.value ? up.s : down.s;
-    const open = clearance > tol;
-    const dg = open ? polishedMinimum(direct, gridDirect, n, localMinima(gridDirect).slice(0, 2)) : { s: clearanceMomentum, value: 2 * clearance };
+    const dg = clearance > tol ? polishedMinimum(direct, gridDirect, n, localMinima(gridDirect).slice(0, 2)) : { s: clearanceMomentum, value: 2 * clearance };
+    const guard = (s: number) => {
+      const d = boundingDistances(at(s), label);
+      return Math.min(d.above, d.below);
+    };
+    const bound = certifiedMinimum({
+      evaluate: (s) => ({ value: direct(s[0]), guard: guard(s[0]) }),
+      lipschitz: [2 * slope],
+      guardLipschitz: [slope],
+      grid: [n],
+      initial: gridDirect.map((value, j) => ({ value, guard: Math.min(gridAbove[j], gridBelow[j]) })),
+      decisionLevel: Math.max(options.certifyAbove ?? 1e-3, tol),
+      relative: 0.5,
+      budget: options.certificationBudget ?? 20000,
+      margin: (2 * accuracy) / Math.PI + 1e-12,
+      knownBest: { value: dg.value, at: [dg.s] },
+    });
+    const open = clearance > tol && bound.status === 'above';
     return {
       label,
       minimalGap: dg.value,
@@ -286,6 +316,15 @@ export function bulkGaps(drive: LatticeDrive, options: BulkGapOptions = {}): Bul
       clearanceMomentum,
       open,
       decayLengthEstimate: open ? Math.max(velocity, clearance) / clearance : Infinity,
+      certified: {
+        lower: Math.max(bound.lower, 0),
+        status: bound.status,
+        evaluations: bound.evaluations,
+        cells: bound.cells,
+        lipschitz: [2 * slope],
+        margin: (2 * accuracy) / Math.PI + 1e-12,
+        decisionLevel: Math.max(options.certifyAbove ?? 1e-3, tol),
+      },
     };
   };
   const gaps: [ChainGap, ChainGap] = [gap(0), gap(1)];

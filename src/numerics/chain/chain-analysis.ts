@@ -11,20 +11,25 @@
 import type { ComplexMatrix } from '../linalg/complex-matrix.ts';
 import type { LatticeDrive } from '../evolution/drive.ts';
 import type { PropagatorOptions } from '../evolution/propagator.ts';
-import type { ChainChiralReport, ChainEndModes, ChainMajoranaReport, ChainPortrait, ChainSymmetryReport, ConsistencyCheck } from '../portrait.ts';
+import type { ChainChiralReport, ChainEndModes, ChainMajoranaReport, ChainPortrait, ConsistencyCheck } from '../portrait.ts';
+import type { IntegerEstimate } from '../certificates.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import { bulkGaps, FloquetCache } from './bulk-gaps.ts';
 import { chiralInvariants } from './chiral-winding.ts';
 import { majoranaInvariants } from './majorana-z2.ts';
 import { phaseWinding } from './phase-winding.ts';
 import { defaultChainLength, openChainSpectrum } from './open-chain.ts';
-import { chiralFromTimeReversalAndParticleHole, chiralResidual, particleHoleResidual, timeReversalResidual } from './symmetry-residuals.ts';
-import type { SymmetryResidual } from './symmetry-residuals.ts';
+import { chiralFromTimeReversalAndParticleHole } from '../symmetry/symmetry-residuals.ts';
+import { declaredSymmetryReports } from '../symmetry/declared-symmetries.ts';
+import { declaredSymmetryClass } from '../symmetry/altland-zirnbauer.ts';
+import { formatRawValue } from '../number-format.ts';
 
 export interface ChainSymmetries {
   chiral?: ComplexMatrix;
-  particleHole?: { unitary: ComplexMatrix };
-  timeReversal?: { unitary: ComplexMatrix };
+  /** The model's symmetric frame times, in its order (the first defines ν′). */
+  chiralTimes?: number[];
+  particleHole?: { unitary: ComplexMatrix; antiunitary?: boolean };
+  timeReversal?: { unitary: ComplexMatrix; antiunitary?: boolean };
 }
 
 export interface ChainAnalysisOptions {
@@ -36,6 +41,10 @@ export interface ChainAnalysisOptions {
   symmetryTolerance?: number;
   /** Uniform k grid of the gap scan (default 128). */
   gapGrid?: number;
+  /** Gap tolerance (units π/T): a gap is open when the certified lower bound of its minimal direct gap exceeds it (default 1e-3). */
+  gapTolerance?: number;
+  /** Most Floquet operators the certified bound of each gap may evaluate (default 20000). */
+  gapEvaluations?: number;
   propagator?: PropagatorOptions;
   /** Stages to run (default all): without the open chain, no end modes and no bulk–end relations are reported. */
   run?: { openChain?: boolean };
@@ -53,15 +62,9 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   const tol = options.symmetryTolerance ?? 1e-10;
   const propagator = options.propagator;
   const cache = new FloquetCache(drive, propagator);
-  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator, cache }));
+  const bulk = timed('gaps', () => bulkGaps(drive, { points: options.gapGrid, propagator, cache, certifyAbove: options.gapTolerance, certificationBudget: options.gapEvaluations }));
 
-  const residuals: SymmetryResidual[] = timed('symmetries', () => {
-    const out: SymmetryResidual[] = [];
-    if (symmetries.chiral) out.push(chiralResidual(drive, symmetries.chiral, tol, propagator));
-    if (symmetries.particleHole) out.push(particleHoleResidual(drive, symmetries.particleHole.unitary, tol, propagator));
-    if (symmetries.timeReversal) out.push(timeReversalResidual(drive, symmetries.timeReversal.unitary, tol, propagator));
-    return out;
-  });
+  const symmetryReports = timed('symmetries', () => declaredSymmetryReports(drive, symmetries, tol, propagator));
 
   let gamma: ComplexMatrix | undefined = symmetries.chiral;
   let source: ChainChiralReport['source'] = 'declared';
@@ -69,7 +72,7 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
     gamma = chiralFromTimeReversalAndParticleHole(symmetries.timeReversal.unitary, symmetries.particleHole.unitary);
     source = 'time-reversal × particle-hole';
   }
-  const chiral = gamma ? timed('chiral', () => chiralReport(drive, gamma!, source, tol, propagator)) : undefined;
+  const chiral = gamma ? timed('chiral', () => chiralReport(drive, gamma!, source, tol, propagator, symmetries.chiralTimes)) : undefined;
   const majorana = symmetries.particleHole ? timed('majorana', () => majoranaReport(drive, symmetries.particleHole!.unitary, propagator)) : undefined;
   // Winding of det U(k, T) (quasienergy-winding.ts), on the operators the gap scan already computed.
   const det = timed('determinant-winding', () => phaseWinding((s) => new LuDecomposition(cache.operator(s).operator).determinant));
@@ -96,11 +99,22 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   consistency.push({
     name: 'det-winding vanishes',
     holds: det.winding.converged && det.winding.nearest === 0,
-    detail: `winding of det U(k, T) = ${det.winding.raw.toFixed(6)} on ${det.points} momenta (0 for any Hamiltonian drive)`,
+    detail: `winding of det U(k, T) = ${formatRawValue(det.winding.raw)} on ${det.points} momenta (0 for any Hamiltonian drive)`,
   });
+  if (chiral?.status === 'computed' && chiral.halfPeriod) {
+    // Two methods for the same invariant where both apply: a disagreement is reported, never smoothed over.
+    for (const [label, heff, half] of [['0', chiral.zero, chiral.halfPeriod.zero], ['π', chiral.pi, chiral.halfPeriod.pi]] as const) {
+      if (!heff?.converged || !half.converged) continue;
+      consistency.push({
+        name: `half-period vs H_eff at ${label}`,
+        holds: heff.nearest === half.nearest,
+        detail: `ν_${label} = ${heff.nearest} from the H_eff windings of both frames, ${half.nearest} from the half-period evolution of the first frame`,
+      });
+    }
+  }
   for (const m of modes) {
     const name = m.label === 0 ? '0' : 'π';
-    const inv = chiral?.status === 'computed' ? (m.label === 0 ? chiral.zero : chiral.pi) : undefined;
+    const inv = chiral?.status === 'computed' ? settledChiral(chiral, m.label) : undefined;
     if (inv && inv.converged && m.settled) {
       const expected = Math.abs(inv.nearest);
       consistency.push({
@@ -120,21 +134,13 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
     }
   }
 
-  const symmetryReports: ChainSymmetryReport[] = residuals.map((r) => ({
-    symmetry: r.symmetry,
-    hamiltonianResidual: r.hamiltonian,
-    floquetResidual: r.floquet,
-    ...(r.frameTime !== undefined ? { frameTime: r.frameTime } : {}),
-    tolerance: r.tolerance,
-    holds: r.holds,
-  }));
-
   return {
     kind: 'chain',
     gaps: bulk.gaps.map((g) => ({ ...g })),
     gapGrid: bulk.grid,
     velocity: bulk.velocity,
     symmetries: symmetryReports,
+    symmetryClass: declaredSymmetryClass(symmetries),
     ...(chiral ? { chiral } : {}),
     ...(majorana ? { majorana } : {}),
     determinantWinding: det.winding,
@@ -158,11 +164,29 @@ export function analyseChain(drive: LatticeDrive, symmetries: ChainSymmetries, o
   };
 }
 
-function chiralReport(drive: LatticeDrive, gamma: ComplexMatrix, source: ChainChiralReport['source'], tol: number, propagator?: PropagatorOptions): ChainChiralReport {
-  const r = chiralInvariants(drive, gamma, { frames: { tolerance: tol }, propagator });
+/** The chiral invariant of a gap: from the H_eff windings when they converged, else from the half-period evolution. */
+export function settledChiral(chiral: ChainChiralReport, label: 0 | 1): IntegerEstimate | undefined {
+  const heff = label === 0 ? chiral.zero : chiral.pi;
+  if (heff?.converged) return heff;
+  const half = label === 0 ? chiral.halfPeriod?.zero : chiral.halfPeriod?.pi;
+  return half ?? heff;
+}
+
+function chiralReport(
+  drive: LatticeDrive,
+  gamma: ComplexMatrix,
+  source: ChainChiralReport['source'],
+  tol: number,
+  propagator?: PropagatorOptions,
+  declaredFrames?: number[],
+): ChainChiralReport {
+  const r = chiralInvariants(drive, gamma, { frames: { tolerance: tol }, propagator, declaredFrames });
+  const ratio = (w: { minModulus: number; maxModulus: number }) => (w.maxModulus > 0 ? w.minModulus / w.maxModulus : 0);
   return {
     status: r.status,
     source,
+    frameSource: r.frameSource,
+    frameNotes: r.notes,
     frames: r.frames.map((f) => ({
       frameTime: f.frameTime,
       winding: f.result.winding,
@@ -175,6 +199,17 @@ function chiralReport(drive: LatticeDrive, gamma: ComplexMatrix, source: ChainCh
     frameTolerance: r.search?.tolerance ?? tol,
     ...(r.zero ? { zero: r.zero } : {}),
     ...(r.pi ? { pi: r.pi } : {}),
+    ...(r.halfPeriod
+      ? {
+          halfPeriod: {
+            frameTime: r.halfPeriod.frameTime,
+            zero: r.halfPeriod.zero.winding,
+            pi: r.halfPeriod.pi.winding,
+            zeroModulusRatio: ratio(r.halfPeriod.zero),
+            piModulusRatio: ratio(r.halfPeriod.pi),
+          },
+        }
+      : {}),
     ...(r.reason !== undefined ? { reason: r.reason } : {}),
   };
 }

@@ -32,7 +32,8 @@ import { segmentStartTimes } from '../evolution/drive.ts';
 import { nambuParticleHole } from '../evolution/bdg.ts';
 import { realSkewPfaffian } from './pfaffian.ts';
 import { fockHamiltonian, majoranaOperators, majoranaProducts, MAX_FOCK_MODES } from './fock-spin-lift.ts';
-import { isTimeDependent } from './reflection-residual.ts';
+import { isTimeDependent } from '../symmetry/reflection-residual.ts';
+import { formatNumber } from '../number-format.ts';
 
 export interface MajoranaParity {
   /** +1: even number (usually none) of Majorana modes per end; −1: odd. null when unsettled. */
@@ -124,7 +125,7 @@ export function majoranaInvariants(drive: LatticeDrive, particleHole: ComplexMat
     const margin = Math.min(...margins);
     if (margin > tolerance) return { sign: value, margin, tolerance };
     const where = margins.indexOf(margin) % 2 === 0 ? '0' : 'π';
-    return { sign: null, margin, tolerance, caveat: `${what} is ${margin.toExponential(2)} at k = ${where} (tolerance ${tolerance.toExponential(1)}): a gap closes there` };
+    return { sign: null, margin, tolerance, caveat: `${what} is ${formatNumber(margin)} at k = ${where} (tolerance ${formatNumber(tolerance)}): a gap closes there` };
   };
   const s = points.map((p) => sign(p.spinTrace));
   const q = points.map((p) => sign(p.pfaffian));

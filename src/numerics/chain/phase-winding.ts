@@ -11,6 +11,7 @@
 import type { Complex } from '../linalg/complex-matrix.ts';
 import type { IntegerEstimate } from '../certificates.ts';
 import { integerEstimate } from '../certificates.ts';
+import { formatNumber } from '../number-format.ts';
 
 export interface PhaseWindingOptions {
   /** Uniform starting grid (default 32). */
@@ -91,7 +92,7 @@ export function phaseWinding(f: (s: number) => Complex, options: PhaseWindingOpt
   const raw = total / (2 * Math.PI);
   let caveat: string | undefined;
   if (!(maxMod > 0) || minMod <= zeroTol * maxMod) {
-    caveat = `the function nearly vanishes at s = ${argMin.toFixed(6)} (|f|/max|f| = ${(maxMod > 0 ? minMod / maxMod : 0).toExponential(2)}): a gap closes on the loop`;
+    caveat = `the function nearly vanishes at s = ${argMin.toFixed(6)} (|f|/max|f| = ${formatNumber(maxMod > 0 ? minMod / maxMod : 0)}): a gap closes on the loop`;
   } else if (unresolved !== undefined) {
     caveat = `phase step above ${maxStep.toFixed(3)} rad not resolved near s = ${unresolved.toFixed(6)} within the step/evaluation budget`;
   }
@@ -100,8 +101,8 @@ export function phaseWinding(f: (s: number) => Complex, options: PhaseWindingOpt
     1e-6,
     [points],
     [
-      { grid: [n0], value: uniformTotal / (2 * Math.PI) },
-      { grid: [points], value: raw },
+      { grid: [n0], value: uniformTotal / (2 * Math.PI), label: `${n0} momenta, uniform` },
+      { grid: [points], value: raw, label: `${points} momenta, adaptive` },
     ],
     true,
     caveat,

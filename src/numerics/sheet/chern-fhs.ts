@@ -30,6 +30,7 @@ import { integerEstimate } from '../certificates.ts';
 import { LuDecomposition } from '../linalg/lu.ts';
 import type { FloquetSampler } from '../quasienergy-bands.ts';
 import { groupColumns } from './gaps.ts';
+import { formatNumber } from '../number-format.ts';
 
 export type { ChernEstimate };
 
@@ -223,11 +224,14 @@ export function chernNumber(
     if (done || 2 * n > maxGrid) {
       let caveat: string | undefined;
       if (!done) {
+        // One grid only: the starting grid is already past the refinement limit, so nothing could change "between grids".
+        const single = history.length === 1;
         const why: string[] = [];
-        if (!stable) why.push('the integer changed between the last two grids');
-        if (field.maxFlux >= threshold) why.push(`the largest plaquette flux ${field.maxFlux.toFixed(3)} is not below ${threshold.toFixed(3)}`);
+        if (!stable) why.push(single ? `the starting grid is at or above the refinement limit ${maxGrid}×${maxGrid}, so there is no second grid to compare with` : 'the integer changed between the last two grids');
+        if (field.maxFlux >= threshold) why.push(`the largest plaquette flux ${formatNumber(field.maxFlux)} is not below ${formatNumber(threshold)}`);
         if (field.minimalLinkModulus <= MINIMAL_LINK_MODULUS) why.push('an overlap determinant between neighbouring momenta vanishes');
-        caveat = `not converged at the largest grid ${n}×${n}: ${why.join('; ')} (a gap may be nearly closed)`;
+        const nearlyClosed = field.maxFlux >= threshold || field.minimalLinkModulus <= MINIMAL_LINK_MODULUS || !single;
+        caveat = `${single ? `computed on the single grid ${n}×${n}` : `not converged at the largest grid ${n}×${n}`}: ${why.join('; ')}${nearlyClosed ? ' (a gap may be nearly closed)' : ''}`;
       }
       return {
         ...integerEstimate(field.raw, tolerance, [n, n], history, stable && fluxOk, caveat),

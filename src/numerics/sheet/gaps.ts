@@ -16,8 +16,15 @@
  * between the two eigenvalues that bound c at that k. Its minimum is found on
  * the grid and then refined around the lowest few local minima by a pattern
  * search (moves of ±h in every direction, h halved when no move improves,
- * starting from half a grid spacing), so that a near-closing between grid
- * points is not missed.
+ * starting from half a grid spacing). The coarse grid only proposes
+ * candidates: whether the gap is open is decided on a certified lower bound
+ * of the minimum over the whole zone (certified-minimum.ts), from the
+ * Lipschitz bound of quasienergies in momentum (evolution/momentum-lipschitz.ts):
+ * each direct gap is the sum of two distances from c to the spectrum, so it
+ * moves by at most 2 Σ_d L_d |δs_d|, as long as no band crosses c (the
+ * distance from c to the spectrum, L-Lipschitz itself, guards that). The gap
+ * is open when the lower bound exceeds the gap tolerance; the bracket
+ * [lower bound, refined minimum] is reported with the evaluations it took.
  *
  * Band groups. Between two consecutive open gaps lie one or more eigenphase
  * branches; they are grouped (a band group) and flagged as touching when two
@@ -26,6 +33,8 @@
 import type { GapReport } from '../portrait.ts';
 import type { FloquetSampler, QuasienergyGrid } from '../quasienergy-bands.ts';
 import { aboveCut, gridMomentum, gridNeighbour, wrapQuasienergy } from '../quasienergy-bands.ts';
+import { certifiedMinimum } from '../certified-minimum.ts';
+import { quasienergyLipschitz } from '../evolution/momentum-lipschitz.ts';
 
 /** Default gap tolerance in units of π/T: gaps whose minimal direct gap is not above it count as closed. */
 export const DEFAULT_GAP_TOLERANCE = 1e-3;
@@ -41,7 +50,16 @@ export interface GapOptions {
   refinementLevels?: number;
   /** How many of the lowest grid minima to refine (default 3). */
   refinedMinima?: number;
+  /** Most Floquet operators the certified lower bound may evaluate per gap (default 20000). */
+  certificationBudget?: number;
+  /** Once above the tolerance, the lower bound is pushed up to this fraction of the refined minimum (default 0.5; 0: stop at the tolerance). */
+  certifiedFraction?: number;
 }
+
+/** Default budget of the certified lower bound, in Floquet operators per gap. */
+export const DEFAULT_CERTIFICATION_BUDGET = 20000;
+/** The lower bound is pushed up to at least this fraction of the refined minimum once it clears the tolerance. */
+export const CERTIFIED_FRACTION = 0.5;
 
 /** A gap with the diagnostics behind it. */
 export interface DetectedGap extends GapReport {
@@ -115,6 +133,16 @@ function emptyArcs(data: QuasienergyGrid): [number, number][] {
   return holes.filter(([lo, hi]) => hi - lo > MINIMAL_ARC_WIDTH);
 }
 
+/** Distance (units π/T) from the cut c to the nearest quasienergy. */
+export function clearanceAt(quasienergies: Float64Array, cut: number): number {
+  let d = Infinity;
+  for (const x of quasienergies) {
+    const a = aboveCut(x, cut);
+    d = Math.min(d, a, 2 - a);
+  }
+  return d;
+}
+
 /** Direct gap around the cut c at one momentum: distance between the eigenvalues just above and just below c. */
 export function directGapAt(quasienergies: Float64Array, cut: number): number {
   if (quasienergies.length === 0) return 2;
@@ -184,6 +212,9 @@ export function findGaps(sampler: FloquetSampler, data: QuasienergyGrid, options
   const tolerance = options.gapTolerance ?? DEFAULT_GAP_TOLERANCE;
   const levels = options.refinementLevels ?? 14;
   const refined = options.refinedMinima ?? 3;
+  const slopes = quasienergyLipschitz(sampler.drive);
+  // One evaluation errs by the time integration's bound on each of the two eigenvalues (and by rounding).
+  const margin = 2 * Math.max(...data.samples.map((s) => s.propagatorAccuracy), 0) + 1e-12;
   const gaps: DetectedGap[] = [];
   for (const [lo, hi] of emptyArcs(data)) {
     const width = hi - lo;
@@ -215,15 +246,43 @@ export function findGaps(sampler: FloquetSampler, data: QuasienergyGrid, options
       best = Math.min(...direct);
       where = gridMomentum(data.grid, direct.indexOf(best));
     }
+    const bound = certifiedMinimum({
+      evaluate: (s) => {
+        const q = sampler.at(s).quasienergies;
+        return { value: directGapAt(q, label), guard: clearanceAt(q, label) };
+      },
+      lipschitz: slopes.map((l) => 2 * l),
+      guardLipschitz: slopes,
+      grid: data.grid,
+      initial: data.samples.map((s, i) => ({ value: direct[i], guard: clearanceAt(s.quasienergies, label) })),
+      decisionLevel: tolerance,
+      relative: 1 - (options.certifiedFraction ?? CERTIFIED_FRACTION),
+      budget: options.certificationBudget ?? DEFAULT_CERTIFICATION_BUDGET,
+      margin,
+      knownBest: { value: best, at: where },
+    });
+    if (bound.best < best) {
+      best = bound.best;
+      where = bound.at;
+    }
     gaps.push({
       label,
       lower: wrapQuasienergy(lo),
       upper: wrapQuasienergy(hi),
       minimalGap: best,
       momentumAtMinimum: where,
-      open: best > tolerance,
+      open: bound.status === 'above',
       arcWidth: width,
-      refinementEvaluations: evaluations,
+      refinementEvaluations: evaluations + bound.evaluations,
+      certified: {
+        lower: Math.max(bound.lower, 0),
+        status: bound.status,
+        evaluations: bound.evaluations,
+        cells: bound.cells,
+        lipschitz: slopes.map((l) => 2 * l),
+        margin,
+        decisionLevel: tolerance,
+      },
     });
   }
   return gaps;

@@ -28,7 +28,10 @@ import type { EdgeCountOptions } from './edge-modes.ts';
 import { countEdgeModes } from './edge-modes.ts';
 import { ribbonSpectrum } from './ribbon.ts';
 import type { WindingOptions } from './winding/gap-winding.ts';
-import { DEFAULT_WINDING_TOLERANCE, gapWindingNumbers } from './winding/gap-winding.ts';
+import { gapWindingNumbers } from './winding/gap-winding.ts';
+import type { DeclaredOperators } from '../symmetry/altland-zirnbauer.ts';
+import { declaredSymmetryClass } from '../symmetry/altland-zirnbauer.ts';
+import { declaredSymmetryReports } from '../symmetry/declared-symmetries.ts';
 
 export interface SheetRibbonOptions {
   /** Finite directions to cut (default both, [0, 1]). */
@@ -44,8 +47,10 @@ export interface SheetRibbonOptions {
 export interface SheetOptions {
   /** Band grid n1 × n2 (default [24, 24]); the Chern refinement starts at max(n1, n2) unless chern.initialGrid says otherwise. */
   grid?: number[];
-  /** Gap tolerance, units π/T (default 1e-3). */
+  /** Gap tolerance, units π/T (default 1e-3): a gap is open when the certified lower bound of its minimal direct gap exceeds it. */
   gapTolerance?: number;
+  /** Most Floquet operators the certified lower bound of each gap may evaluate (default 20000, gaps.ts). */
+  gapEvaluations?: number;
   /** Claimed gap labels (units π/T): gaps containing one are named by it. */
   labels?: number[];
   /** Band groups are counted upward from the open gap containing this quasienergy (default 1, the gap at π/T). */
@@ -56,17 +61,32 @@ export interface SheetOptions {
   edges?: EdgeCountOptions;
   /**
    * Time integration of time-dependent segments. Without a tolerance, bands
-   * and Chern numbers use verdictPropagatorTolerance(gapTolerance, winding
-   * tolerance), ribbons verdictPropagatorTolerance(gapTolerance, 1/100)
-   * (propagator.ts states the rule); the winding numbers choose their own
-   * unless one is given here.
+   * and Chern numbers use verdictPropagatorTolerance(gapTolerance, integer
+   * accuracy) with the model's integer tolerance, else BAND_INTEGER_ACCURACY,
+   * ribbons verdictPropagatorTolerance(gapTolerance, 1/100) (propagator.ts
+   * states the rule); the winding numbers choose their own unless one is given here.
    */
   propagator?: PropagatorOptions;
   /** Stages to run (all default true). */
   run?: { chern?: boolean; winding?: boolean; edges?: boolean };
+  /** Declared symmetry operators: each gets residuals (checked with the chains' strict time integration). */
+  symmetries?: DeclaredOperators;
 }
 
+/** Relative tolerance of the symmetry relations, and the time-integration tolerance (radians) they are checked with, as for chains. */
+export const SYMMETRY_TOLERANCE = 1e-10;
+export const SYMMETRY_PROPAGATOR_TOLERANCE = 1e-9;
+
 export const DEFAULT_SHEET_GRID = [24, 24];
+
+/**
+ * The integer accuracy the band propagator is held to when the model sets no
+ * integer tolerance: eigenvectors then move by at most 10⁻³ of themselves
+ * (propagator.ts, verdictPropagatorTolerance), ample for the Fukui–Hatsugai–Suzuki
+ * links and the gap bounds. The gap winding numbers integrate their own loop
+ * (winding/time-loop.ts) and are not bound by it.
+ */
+export const BAND_INTEGER_ACCURACY = 1e-3;
 
 /**
  * Sign σ with count(edge) = σ · W for a ribbon finite along lattice vector
@@ -110,7 +130,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   const run = { chern: true, winding: true, edges: true, ...options.run };
   const tolerance = options.gapTolerance ?? DEFAULT_GAP_TOLERANCE;
   const grid = options.grid ?? DEFAULT_SHEET_GRID;
-  const integerTolerance = options.winding?.tolerance ?? DEFAULT_WINDING_TOLERANCE;
+  const integerTolerance = options.winding?.tolerance ?? BAND_INTEGER_ACCURACY;
   const propagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, integerTolerance) };
   // Edge counts are counts, not residual-tested integers: only the gap part of the rule applies to ribbons.
   const ribbonPropagator: PropagatorOptions = { ...options.propagator, tolerance: options.propagator?.tolerance ?? verdictPropagatorTolerance(tolerance, 0.01) };
@@ -122,7 +142,11 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   timings.bands = clock() - t;
 
   t = clock();
-  const detected: DetectedGap[] = findGaps(sampler, data, { gapTolerance: tolerance, labels: options.labels });
+  const detected: DetectedGap[] = findGaps(sampler, data, {
+    gapTolerance: tolerance,
+    labels: options.labels,
+    ...(options.gapEvaluations !== undefined ? { certificationBudget: options.gapEvaluations } : {}),
+  });
   const gaps: GapReport[] = detected.map((g) => ({
     label: g.label,
     lower: g.lower,
@@ -131,6 +155,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
     momentumAtMinimum: g.momentumAtMinimum,
     open: g.open,
     arcWidth: g.arcWidth,
+    ...(g.certified ? { certified: g.certified } : {}),
   }));
   const ordered = orderFromCut(detected, options.cut ?? 1);
   const groups = bandGroups(data, ordered, tolerance);
@@ -190,6 +215,11 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   }
   timings.edges = clock() - t;
 
+  t = clock();
+  const declared = options.symmetries ?? {};
+  const symmetries = declaredSymmetryReports(drive, declared, SYMMETRY_TOLERANCE, { ...options.propagator, tolerance: Math.min(options.propagator?.tolerance ?? Infinity, SYMMETRY_PROPAGATOR_TOLERANCE) });
+  timings.symmetries = clock() - t;
+
   const consistency = consistencyChecks(ordered, bands, windings, ribbons, latticeOrientation(drive));
   return {
     kind: 'sheet',
@@ -204,6 +234,8 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
     cut: ordered.length > 0 ? ordered[0].label : NaN,
     eigenResidual: sampler.worstEigenResidual,
     floquetEvaluations: sampler.evaluations,
+    symmetries,
+    symmetryClass: declaredSymmetryClass(declared),
     timings,
   };
 }

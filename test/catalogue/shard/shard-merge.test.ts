@@ -75,8 +75,8 @@ describe('sharded runs and merging', () => {
     const run = async (args: string[]) => runVerifiedCheck([...args, '--workers', '0', '--no-cache', '--out', out], capture().io);
     expect(await run(['test/fixtures/verification/two-step-chain-correct.json'])).toBe(0);
     expect(await run(['test/fixtures/verification/two-step-chain-wrong-frame.json'])).toBe(1);
-    expect(await run(['test/fixtures/verification/qwz-near-critical.json'])).toBe(0);
-    expect(await run(['test/fixtures/verification/qwz-near-critical.json', '--strict'])).toBe(1);
+    expect(await run(['test/fixtures/verification/qwz-closed-gap.json'])).toBe(0);
+    expect(await run(['test/fixtures/verification/qwz-closed-gap.json', '--strict'])).toBe(1);
     const bad = capture();
     expect(await runVerifiedCheck(['--shard', '3/2'], bad.io)).toBe(2);
     expect(bad.err.join('')).toBe('strobe check: --shard 3/2: the shard index must lie between 1 and 2 (shards are numbered from 1)\n');

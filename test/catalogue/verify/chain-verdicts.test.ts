@@ -10,10 +10,10 @@ import { DEFAULT_POLICY } from '../../../src/catalogue/verify/policy.ts';
 import { classifyChain } from '../../../src/catalogue/verify/anomalous.ts';
 import type { NormalizedClaim } from '../../../src/catalogue/verify/claims.ts';
 import { integerEstimate } from '../../../src/numerics/certificates.ts';
-import { estimate } from './hand-portraits.ts';
+import { certified, estimate } from './hand-portraits.ts';
 
 const gap = (label: number, width: number) => ({
-  label, lower: label - width / 2, upper: label === 1 ? -1 + width / 2 : label + width / 2, minimalGap: width, momentumAtMinimum: [0.5], open: width > 1e-3, arcWidth: width,
+  label, lower: label - width / 2, upper: label === 1 ? -1 + width / 2 : label + width / 2, minimalGap: width, momentumAtMinimum: [0.5], open: 0.8 * width > 1e-3, arcWidth: width, certified: certified(width),
 });
 const chiral = [
   { name: 'chiral symmetry of H(t) about t₀ = 0.25', residual: 0, tolerance: 1e-10 },
@@ -45,7 +45,7 @@ function chainView(nu1: number, nu2: number, o: { piGap?: number; frameResidual?
     consistency: [],
     propagatorAccuracy: 0,
     timings: {},
-    velocity: 2,
+    bandwidth: 0.6,
   };
 }
 
@@ -88,7 +88,7 @@ describe('chain verdicts', () => {
     const [gamma, nu0, ends] = verdicts;
     // The policy floor 1e-8 applies when the engine's tolerance is tighter.
     expect(gamma).toMatchObject({ kind: 'symmetry', pointer: '/claims/symmetries/chiral/operator', outcome: 'contradicted', claimed: true, computed: false });
-    expect(gamma.message).toContain('symmetry broken: ‖ΓH(t₀+s)Γ† + H(t₀−s)‖ = 0.185 > tolerance 1.00e-8 (max over k and s, best frame t₀ = 0.25); ‖ΓUΓ† − U†‖ = 0.00100 > tolerance 1.00e-8');
+    expect(gamma.message).toContain('symmetry broken: ‖ΓH(t₀+s)Γ† + H(t₀−s)‖ = 0.185 > tolerance 1×10⁻⁸ (max over k and s, best frame t₀ = 0.25); ‖ΓUΓ† − U†‖ = 0.001 > tolerance 1×10⁻⁸');
     expect(gamma.certificate.residual).toBe(0.185);
     expect(nu0).toMatchObject({ outcome: 'contradicted', computed: null });
     expect(nu0.message).toMatch(/^The invariant of the gap at ε = 0 is not defined, symmetry broken: ‖ΓH\(t₀\+s\)Γ† \+ H\(t₀−s\)‖ = 0\.185 > tolerance/);
@@ -118,7 +118,7 @@ describe('chain verdicts', () => {
     const entry = judgeChain(view, [], DEFAULT_POLICY).entries.find((e) => e.id === 'gap-1/invariant');
     const flag = classifyChain(entry);
     expect(flag.classification).toBe('undetermined');
-    expect(flag.reason).toBe('winding ν_π of the gap at ε = π/T is unsettled (the engine computed no invariant: no symmetric time frame within tolerance)');
+    expect(flag.reason).toBe('winding ν_π of the gap at ε = π/T is unsettled (the engine computed no invariant: no symmetric time frame within tolerance; to settle, check the declared operator against the drive (see the verdict on the symmetry))');
     expect(flag.reason).not.toMatch(/closed/);
     view.symmetry = [];
     const claim = judgeChain(view, [inv(1, 1)], DEFAULT_POLICY);

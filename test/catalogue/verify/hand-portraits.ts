@@ -3,8 +3,9 @@
  * engines. Values follow published results (cited where used), not our code.
  */
 import type { IntegerEstimate } from '../../../src/numerics/certificates.ts';
-import type { ChernEstimate, RibbonReport } from '../../../src/numerics/portrait.ts';
+import type { ChernEstimate, GapCertificate, RibbonReport } from '../../../src/numerics/portrait.ts';
 import type { CheckedSheetPortrait } from '../../../src/catalogue/verify/sheet-verdicts.ts';
+import { declaredSymmetryClass } from '../../../src/numerics/symmetry/altland-zirnbauer.ts';
 
 /** An integer estimate refined over two grids, converging to `value` with residual `residual`. */
 export function estimate(value: number, options: { residual?: number; coarse?: number; tolerance?: number; converged?: boolean; caveat?: string } = {}): IntegerEstimate {
@@ -26,6 +27,15 @@ export function estimate(value: number, options: { residual?: number; coarse?: n
   };
   if (options.caveat) e.caveat = options.caveat;
   return e;
+}
+
+/**
+ * A certified lower bound as the engine reports it (certified-minimum.ts): `fraction` of the
+ * refined minimum, decided against the default tolerance 1e-3.
+ */
+export function certified(minimalGap: number, fraction = 0.8, status?: GapCertificate['status']): GapCertificate {
+  const lower = fraction * minimalGap;
+  return { lower, status: status ?? (lower > 1e-3 ? 'above' : minimalGap <= 1e-3 ? 'below' : 'undecided'), evaluations: 100, cells: 676, lipschitz: [4, 4], margin: 1e-9, decisionLevel: 1e-3 };
 }
 
 export function chernEstimate(value: number): ChernEstimate {
@@ -65,8 +75,8 @@ export function twoBandSheet(o: { c?: [number, number]; w?: [number, number]; ga
     kind: 'sheet',
     grid: [grid, grid],
     gaps: [
-      { label: 0, lower: -gap0 / 2, upper: gap0 / 2, minimalGap: gap0, momentumAtMinimum: [0, 0], open: gap0 > 1e-3, arcWidth: gap0 },
-      { label: 1, lower: 1 - gapPi / 2, upper: -1 + gapPi / 2, minimalGap: gapPi, momentumAtMinimum: [0.5, 0.5], open: gapPi > 1e-3, arcWidth: gapPi },
+      { label: 0, lower: -gap0 / 2, upper: gap0 / 2, minimalGap: gap0, momentumAtMinimum: [0, 0], open: 0.8 * gap0 > 1e-3, arcWidth: gap0, certified: certified(gap0) },
+      { label: 1, lower: 1 - gapPi / 2, upper: -1 + gapPi / 2, minimalGap: gapPi, momentumAtMinimum: [0.5, 0.5], open: 0.8 * gapPi > 1e-3, arcWidth: gapPi, certified: certified(gapPi) },
     ],
     bands: [
       { index: 0, branches: 1, gapBelow: 0, gapAbove: 1, range: [0.5 - half, 0.5 + half], minimalInternalGap: Infinity, touching: false, chern: chernEstimate(c[0]) },
@@ -84,6 +94,8 @@ export function twoBandSheet(o: { c?: [number, number]; w?: [number, number]; ga
     cut: 0,
     eigenResidual: 1e-14,
     floquetEvaluations: 2304,
+    symmetries: [],
+    symmetryClass: declaredSymmetryClass({}),
     timings: { bands: 1, winding: 2, ribbon: 3 },
   };
 }

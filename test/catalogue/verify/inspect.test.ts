@@ -17,9 +17,11 @@ describe('inspecting one model', () => {
     expect(text).toMatch(/^two-step-chain-wrong-frame — Two-step chain with frame windings claimed as gap invariants\n/);
     // Gap at 0 of the two-step chain: 2|θ₁ − θ₂|/π = 0.6 π/T (θ₁ = 0.4π, θ₂ = 0.7π), printed to 4 digits.
     expect(text).toMatch(/\n {2}0 {4}-0\.300 … 0\.300 {2}0\.6000 /);
-    expect(text).toContain('  gap-0/invariant: contradicted (claimed 2, computed 1)\n');
+    expect(text).toContain('  ν_0, the winding at ε = 0 [gap-0/invariant]: contradicted (claimed 2, computed 1)\n');
     expect(text).toContain('    hint: matches ν″ of the other symmetric frame');
-    expect(text).toMatch(/evidence: grid 32; \|x − round x\| .* \(tol 0\.00000100\)/);
+    expect(text).toMatch(/evidence: grid 32; \|x − round x\| [0-9.×⁻⁰¹²³⁴⁵⁶⁷⁸⁹]+ \(tol 1×10⁻⁶\)/);
+    // The refinement history, one level per line.
+    expect(text).toMatch(/\n {4}refinement:\n {6}\(ν′ \+ ν″\)\/2 from frames on 32 and 32 momenta → 1\.0000000\n {6}ν′: 32 momenta, uniform → [0-9.×⁻⁰¹²³⁴⁵⁶⁷⁸⁹−]+\n/);
     expect(text).toContain('Computed but not claimed\n  end modes per end at ε = 0: 1\n');
   });
 

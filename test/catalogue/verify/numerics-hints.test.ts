@@ -73,7 +73,7 @@ describe('loosened tolerances', () => {
     expect(point.verdicts.length).toBeGreaterThan(0);
     for (const v of point.verdicts) {
       expect(v.certificate.notes.some((n) => n.includes('loosens numerics.tolerances.integer to 0.05'))).toBe(true);
-      expect(v.certificate.notes.some((n) => n.includes('loosens numerics.tolerances.gap to 0.0005'))).toBe(true);
+      expect(v.certificate.notes.some((n) => n.includes('loosens numerics.tolerances.gap to 5×10⁻⁴'))).toBe(true);
     }
     for (const e of point.entries) expect(e.certificate.notes.some((n) => n.includes('numerics.tolerances.integer'))).toBe(true);
   });

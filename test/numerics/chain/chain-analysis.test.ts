@@ -16,6 +16,9 @@ describe('analyseChain', () => {
     expect(p.openChain!.modes.map((m) => [m.low, m.high])).toEqual([[1, 1], [1, 1]]);
     expect(p.consistency.length).toBeGreaterThanOrEqual(3);
     for (const c of p.consistency) expect(c.holds, c.detail).toBe(true);
+    // Both gaps open: the half-period invariants are checked against the H_eff ones, and the check is reported.
+    expect(p.consistency.map((c) => c.name)).toEqual(expect.arrayContaining(['half-period vs H_eff at 0', 'half-period vs H_eff at π']));
+    expect([p.chiral!.halfPeriod!.zero.nearest, p.chiral!.halfPeriod!.pi.nearest]).toEqual([p.chiral!.zero!.nearest, p.chiral!.pi!.nearest]);
     expect(p.determinantWinding.nearest + 0).toBe(0);
   });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { blochHamiltonian } from '../../../src/numerics/evolution/bloch.ts';
 import { nambuDrive, nambuParticleHole, NambuInputError } from '../../../src/numerics/evolution/bdg.ts';
-import { particleHoleResidual } from '../../../src/numerics/chain/symmetry-residuals.ts';
+import { particleHoleResidual } from '../../../src/numerics/symmetry/symmetry-residuals.ts';
 import { kitaevChain, twoStepChain } from '../../support/drives/chains.ts';
 
 describe('nambuDrive', () => {

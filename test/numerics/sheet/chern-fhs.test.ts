@@ -82,6 +82,15 @@ describe('chernNumber (Fukui–Hatsugai–Suzuki)', () => {
     expect(c.caveat).toMatch(/not converged at the largest grid 8×8/);
   });
 
+  it('says so, without claiming a change between grids, when the starting grid is past the refinement limit', () => {
+    // QWZ at m = 1 is deep in its C = 1 phase; only the single grid keeps it unsettled.
+    const c = chernNumber(new FloquetSampler(qwzDrive(1)), 1, 0, 1, { initialGrid: 16, maxGrid: 8 });
+    expect(c.history).toHaveLength(1);
+    expect(c.converged).toBe(false);
+    expect(c.caveat).toBe('computed on the single grid 16×16: the starting grid is at or above the refinement limit 8×8, so there is no second grid to compare with');
+    expect(c.caveat).not.toMatch(/changed between/);
+  });
+
   it('is invariant under arbitrary phases of the eigenvectors and under basis changes inside a group (seeded)', () => {
     const random = seededRandom(7);
     const sampler = new FloquetSampler(qwzDrive(0.8));

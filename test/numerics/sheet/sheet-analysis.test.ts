@@ -23,7 +23,7 @@ describe('analyseSheet on QWZ at m = 1', () => {
     expect(portrait.consistency.length).toBeGreaterThan(10);
     const failing = portrait.consistency.filter((c) => !c.holds);
     expect(failing).toEqual([]);
-    expect(Object.keys(portrait.timings).sort()).toEqual(['bands', 'chern', 'edges', 'gaps', 'winding']);
+    expect(Object.keys(portrait.timings).sort()).toEqual(['bands', 'chern', 'edges', 'gaps', 'symmetries', 'winding']);
     expect(portrait.propagatorAccuracy).toBeLessThan(1e-9);
     expect(portrait.eigenResidual).toBeLessThan(1e-12);
   });

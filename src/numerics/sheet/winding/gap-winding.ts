@@ -11,18 +11,30 @@
  *
  * Procedure and evidence:
  * 1. Probe (winding/probe.ts): the distance d from each cut to the spectrum of
- *    U(k, T) is minimised over the zone. Below `closingFloor` the gap is
- *    treated as closed: W is not defined there, and the report says so.
- * 2. Integrate (winding/integral.ts) on grids n × n × (time nodes) that grow by
- *    about 1.5 per level, with points crowded near the minima of d whose width
- *    d/v is below a few grid spacings (winding/grid.ts).
- * 3. Accept when two successive levels both lie within `tolerance` of the same
- *    integer and differ by at most `tolerance`; otherwise the report carries
- *    converged = false and says why. Every level is kept in `history`.
- *    Default tolerance 1e-3: the discretisation error falls with a high power
- *    of the grid (order-8 differences, Gauss–Legendre in time), so two levels
- *    that agree to 1e-3 at an integer leave a wide margin to the ±1/2 that
- *    would change the verdict, at a cost far below a 1e-6 target.
+ *    U(s, T) on a probe grid, its local minima polished, with their widths d/v.
+ *    A cut that comes within `closingFloor` of the spectrum is closed: W is not
+ *    defined there, and the report says so. (Whether a gap is open for a
+ *    verdict is decided by the certified bound of sheet/gaps.ts.)
+ * 2. Mesh (winding/cell-mesh.ts): cells quartered until each is small against
+ *    its distance from every cut (L₁h₁ + L₂h₂ ≤ κ·d with the Lipschitz bound L
+ *    of the loop's quasienergies and κ = 16, since L overestimates the slope)
+ *    and graded geometrically towards every polished minimum down to its width.
+ * 3. Time rule: Gauss–Legendre nodes per loop piece, raised until about a
+ *    quarter more nodes per piece change the density by less than
+ *    tolerance/1000 (relative) at the momenta closest to each cut and at
+ *    generic ones; the rule is exponentially convergent (the integrand is
+ *    trigonometric in t on each piece), so the change bounds the error of the
+ *    coarser rule, which is the one used.
+ * 4. Integrate (winding/adaptive-quadrature.ts, winding/density.ts): adaptive
+ *    Gauss–Kronrod cubature of the exactly differentiated density, refined
+ *    where its local error estimate is largest, budgeted by evaluations.
+ * 5. Accept when the error estimate and |W − round W| are both within
+ *    `tolerance` and the nested Gauss and Kronrod sums on the final cells
+ *    round to the same integer; otherwise the report carries converged = false
+ *    and says what would settle it. The history lists the Kronrod value at each
+ *    checkpoint (after the first mesh, then whenever the evaluations have
+ *    doubled), then the nested 7-point Gauss and the 15-point Kronrod sums on
+ *    the final cells.
  *
  * Sign conventions: reduced momenta s with k = s₁b₁ + s₂b₂; the integral is
  * computed in s and multiplied by sign det(a₁, a₂), so a left-handed basis
@@ -32,7 +44,7 @@
  * W_{ε′} − W_ε = Σ C over the bands between ε and ε′ (docs/conventions.md).
  */
 import type { LatticeDrive } from '../../evolution/drive.ts';
-import type { WindingReport } from '../../portrait.ts';
+import type { WindingQuadrature, WindingReport } from '../../portrait.ts';
 import type { RefinementStep } from '../../certificates.ts';
 import { integerEstimate } from '../../certificates.ts';
 import type { PropagatorOptions } from '../../evolution/propagator.ts';
@@ -42,69 +54,77 @@ import { prepareBloch } from '../../evolution/bloch.ts';
 import { zeros } from '../../linalg/complex-matrix.ts';
 import { HermitianEigen } from '../../linalg/hermitian-eigen.ts';
 import type { LoopPlan } from './time-loop.ts';
-import { generatorSeries, loopFloquetOperator, magnusSliceCounts, pieceGenerator, planLoop } from './time-loop.ts';
-import type { AxisFocus } from './grid.ts';
-import { gradedAxis } from './grid.ts';
-import type { CutProbe } from './probe.ts';
-import { probeCut } from './probe.ts';
-import { windingOnGrid } from './integral.ts';
+import { generatorSeries, loopFloquetOperator, loopLipschitz, magnusSliceCounts, pieceGenerator, planLoop } from './time-loop.ts';
 import { unitaryEigenTwo } from './two-band-kernel.ts';
 import { latticeOrientation } from '../chern-fhs.ts';
+import { formatNumber } from '../../number-format.ts';
+import { gradedMesh } from './cell-mesh.ts';
+import { probeCut } from './probe.ts';
+import type { DensityEvaluator } from './density.ts';
+import { WindingDensity } from './density.ts';
+import { TwoBandWindingDensity } from './two-band-density.ts';
+import { adaptiveCubature, POINTS_PER_CELL } from './adaptive-quadrature.ts';
 
 export interface WindingOptions {
-  /** Accepted |W − round W| (default 1e-3), also the largest accepted change between the last two levels. */
+  /** Accepted |W − round W| and accepted error estimate of the quadrature (default 1e-6). */
   tolerance?: number;
-  /** Momentum points per direction on the first level (default 16). */
-  initialGrid?: number;
-  /** Largest momentum grid per direction (default 128). */
-  maxGrid?: number;
-  /** Half-width r of the central differences in momentum, order 2r (default 4). */
-  stencilRadius?: number;
-  /** Points per direction of the probe grid for the distance to the cut (default 24). */
-  probeGrid?: number;
+  /** Most evaluations of the winding density (momenta, each integrated over the loop) per call (default 400000). */
+  evaluations?: number;
+  /** Cells per direction of the uniform start of the mesh (default 4). */
+  initialCells?: number;
   /** Distance from cut to spectrum (units π/T) below which the gap counts as closed (default 1e-6). */
   closingFloor?: number;
   /**
    * Options of the time integration of U (time-dependent segments only). W
    * only needs the loop's U(T) to stay well inside the gap (winding/time-loop.ts):
-   * by default the tolerance on eigenphases starts at 1e-6 and is tightened to
-   * 1/100 of the smallest gap found; with an explicit tolerance, a gap within
-   * 100× of it is flagged in the caveat.
+   * by default the tolerance on eigenphases starts at 1e-3 and is tightened to
+   * 1/20 of the smallest distance from a cut to the spectrum; with an explicit
+   * tolerance, a distance within 20× of it is flagged in the caveat.
    */
   propagator?: PropagatorOptions;
 }
 
-export const DEFAULT_WINDING_TOLERANCE = 1e-3;
+export const DEFAULT_WINDING_TOLERANCE = 1e-6;
+export const DEFAULT_WINDING_EVALUATIONS = 400000;
 export const DEFAULT_CLOSING_FLOOR = 1e-6;
-/** First tolerance on eigenphases for Magnus-sliced segments; tightened to gap/GAP_OVER_TOLERANCE when the gap is narrower. */
-export const DEFAULT_WINDING_PROPAGATOR_TOLERANCE = 1e-6;
-const GAP_OVER_TOLERANCE = 100;
-/** A minimum of the distance is crowded when its width d/v is below this many first-level spacings. */
-const FOCUS_SPACINGS = 4;
-/** Ratio of successive widths in the ladder of foci around one minimum. */
-const LADDER_RATIO = 8;
-/** Growth of the grid per level. */
-const GROWTH = 1.5;
+/**
+ * First tolerance on eigenphases (radians) for Magnus-sliced segments; tightened to
+ * (distance to the cut)/GAP_OVER_TOLERANCE when a cut comes closer. The loop is a
+ * piecewise-constant drive whose own W is integrated exactly; it has the W of the
+ * true drive as long as its U(T) stays inside the gap (winding/time-loop.ts), which
+ * an eigenphase error of a twentieth of the distance to the cut leaves far from doubt.
+ */
+export const DEFAULT_WINDING_PROPAGATOR_TOLERANCE = 1e-3;
+const GAP_OVER_TOLERANCE = 20;
+/** The time rule is accepted when one more node per piece changes the density by at most this fraction of the W tolerance (relative). */
+const TIME_RULE_FRACTION = 1e-3;
+/** Share of the W tolerance granted to the momentum quadrature's error estimate. */
+const QUADRATURE_SHARE = 0.5;
+/** κ of the quadrature's first mesh (winding/cell-mesh.ts). */
+const MESH_FRACTION = 16;
+/** Points per direction of the probe grid, and how sharp (width in reduced momentum) a minimum must be to become a focus. */
+const PROBE_GRID = 24;
+const SHARP_WIDTH = 0.25;
 
 function resolved(options: WindingOptions) {
   const o = {
     tolerance: options.tolerance ?? DEFAULT_WINDING_TOLERANCE,
-    initialGrid: options.initialGrid ?? 16,
-    maxGrid: options.maxGrid ?? 128,
-    stencilRadius: options.stencilRadius ?? 4,
-    probeGrid: options.probeGrid ?? 24,
+    evaluations: options.evaluations ?? DEFAULT_WINDING_EVALUATIONS,
+    initialCells: options.initialCells ?? 4,
     closingFloor: options.closingFloor ?? DEFAULT_CLOSING_FLOOR,
   };
-  const positiveInt = (name: string, v: number, min: number) => {
-    if (!(Number.isInteger(v) && v >= min)) throw new RangeError(`gapWindingNumbers: option ${name} must be an integer ≥ ${min}, got ${v}`);
-  };
   if (!(o.tolerance > 0 && o.tolerance < 0.5)) throw new RangeError(`gapWindingNumbers: option tolerance must lie in (0, 0.5), got ${o.tolerance}`);
-  positiveInt('stencilRadius', o.stencilRadius, 1);
-  positiveInt('initialGrid', o.initialGrid, 2 * o.stencilRadius + 1);
-  positiveInt('maxGrid', o.maxGrid, o.initialGrid);
-  positiveInt('probeGrid', o.probeGrid, 3);
+  if (!(Number.isInteger(o.evaluations) && o.evaluations >= 2 * POINTS_PER_CELL)) {
+    throw new RangeError(`gapWindingNumbers: option evaluations must be an integer ≥ ${2 * POINTS_PER_CELL}, got ${o.evaluations}`);
+  }
+  if (!(Number.isInteger(o.initialCells) && o.initialCells >= 1)) throw new RangeError(`gapWindingNumbers: option initialCells must be a positive integer, got ${o.initialCells}`);
   if (!(o.closingFloor >= 0)) throw new RangeError(`gapWindingNumbers: option closingFloor must be ≥ 0, got ${o.closingFloor}`);
   return o;
+}
+
+/** The density evaluator for the loop: the closed-form 2×2 path for two bands. */
+export function windingDensity(plan: LoopPlan, series: ReturnType<typeof generatorSeries>, cuts: number[], nodes: number[]): DensityEvaluator {
+  return series[0].size === 2 ? new TwoBandWindingDensity(plan, series, cuts, nodes) : new WindingDensity(plan, series, cuts, nodes);
 }
 
 /** Gauss–Legendre nodes per piece: enough for the phase the integrand can turn through on the piece (trigonometric in t). */
@@ -126,36 +146,7 @@ function baseNodes(drive: LatticeDrive, plan: LoopPlan, momenta: number[][]): nu
   });
 }
 
-function levelSizes(initial: number, max: number): number[] {
-  const sizes: number[] = [];
-  for (let n = initial; n <= max; n = Math.round(n * GROWTH)) sizes.push(n + (n % 2));
-  return sizes.filter((n, i) => n <= max + 1 && (i === 0 || n !== sizes[i - 1]));
-}
-
-/**
- * Foci of the graded axes. Around a Dirac-like minimum of width w the density
- * falls off only as a power of the distance q (its integral outside radius q
- * goes like w/q), so a single concentration of width w leaves the range
- * w ≪ q ≪ spacing under-resolved and convergence algebraic. A geometric ladder
- * of widths w, 8w, 64w, … up to the first-level spacing gives a point density
- * of about 1/q over that range (spacing ∝ distance, as in geometrically graded
- * meshes), which restores fast convergence; measured on the Qi–Wu–Zhang model
- * with gap 2·10⁻³, 5·10⁻⁵ off the integer on a 54 × 54 grid.
- */
-function focusAxes(probes: CutProbe[], initialGrid: number): [AxisFocus[], AxisFocus[]] {
-  const axes: [AxisFocus[], AxisFocus[]] = [[], []];
-  const top = FOCUS_SPACINGS / initialGrid;
-  for (const probe of probes) {
-    for (const focus of probe.foci) {
-      for (const axis of [0, 1]) {
-        for (let w = focus.widths[axis]; w < top; w *= LADDER_RATIO) axes[axis].push({ centre: focus.momentum[axis], width: w });
-      }
-    }
-  }
-  return axes;
-}
-
-const fmt = (x: number) => (Math.abs(x) >= 1e-3 && Math.abs(x) < 1e4 ? x.toPrecision(4) : x.toExponential(2));
+const fmt = formatNumber;
 
 /** Loop plan, generator series, base node counts and the loop's own spectrum for one propagator tolerance. */
 function prepareLoop(drive: LatticeDrive, propagator: PropagatorOptions, corners: number[][]) {
@@ -173,7 +164,34 @@ function prepareLoop(drive: LatticeDrive, propagator: PropagatorOptions, corners
     } else phases = new UnitaryEigen(u).phases;
     return Array.from(phases, (phi) => wrapQuasienergy(-phi / Math.PI));
   };
-  return { plan, series, nodes, spectrum };
+  return { plan, series, nodes, spectrum, lipschitz: loopLipschitz(series, plan) };
+}
+
+/**
+ * Node counts for the time integral: the base counts, raised by about a quarter
+ * per round until that raise changes the density at the probe momenta by at
+ * most TIME_RULE_FRACTION·tolerance relative to its size. Returns the counts
+ * (the coarser of the last pair) and the largest relative change seen.
+ */
+function settleTimeRule(plan: LoopPlan, series: ReturnType<typeof generatorSeries>, cuts: number[], base: number[], probes: number[][], tolerance: number) {
+  const limit = TIME_RULE_FRACTION * tolerance;
+  const g = cuts.length;
+  const a = new Float64Array(g), b = new Float64Array(g), im = new Float64Array(g), dist = new Float64Array(g);
+  let nodes = base.slice(), change = Infinity, evaluations = 0;
+  for (let round = 0; round < 8; round++) {
+    const finer = nodes.map((m) => m + Math.max(1, Math.ceil(m / 4)));
+    const coarse = windingDensity(plan, series, cuts, nodes), fine = windingDensity(plan, series, cuts, finer);
+    change = 0;
+    for (const s of probes) {
+      coarse.evaluate(s[0], s[1], a, im, dist);
+      fine.evaluate(s[0], s[1], b, im, dist);
+      evaluations += 2;
+      for (let j = 0; j < g; j++) change = Math.max(change, Math.abs(a[j] - b[j]) / (1 + Math.abs(b[j])));
+    }
+    if (change <= limit) break;
+    nodes = finer;
+  }
+  return { nodes, change, evaluations };
 }
 
 /**
@@ -191,85 +209,137 @@ export function gapWindingNumbers(drive: LatticeDrive, gapLabels: number[], opti
 
   const corners = [[0, 0], [0.5, 0], [0, 0.5], [0.5, 0.5], [0.25, 0.75]];
   // Time-dependent segments become Magnus slices (winding/time-loop.ts). Their U(T) only has to stay far inside
-  // the gap, so the slicing starts loose and is tightened once the probe has measured the gap.
+  // the gap, so the slicing starts loose and is tightened once the mesh has measured the gap.
   let propagator = { tolerance: DEFAULT_WINDING_PROPAGATOR_TOLERANCE, ...options.propagator };
   let loop = prepareLoop(drive, propagator, corners);
-  const probeAll = () => gapLabels.map((g) => probeCut(loop.spectrum, g, o.probeGrid, { sharpWidth: FOCUS_SPACINGS / o.initialGrid, floor: o.closingFloor / 10 }));
-  let probes = probeAll();
+  const meshFor = () => {
+    const probes = gapLabels.map((g) => probeCut(loop.spectrum, g, PROBE_GRID, { sharpWidth: SHARP_WIDTH, floor: o.closingFloor / 10 }));
+    const foci = probes.flatMap((p) => (p.minimalDistance < o.closingFloor ? [] : p.foci.map((f) => ({ centre: f.momentum, widths: f.widths }))));
+    const graded = gradedMesh({ spectrum: loop.spectrum, cuts: gapLabels, lipschitz: loop.lipschitz, initial: o.initialCells, closingFloor: o.closingFloor, fraction: MESH_FRACTION, foci });
+    // The probe's polished minima are finer than the mesh centres: they decide closing and report the minimum.
+    probes.forEach((p, i) => {
+      const cut = graded.cuts[i];
+      if (p.minimalDistance < cut.smallest) {
+        cut.smallest = p.minimalDistance;
+        cut.at = p.momentumAtMinimum;
+      }
+      if (p.minimalDistance < o.closingFloor) cut.closed = true;
+    });
+    return graded;
+  };
+  let mesh = meshFor();
   const sliced = loop.plan.pieces.some((piece) => piece.kind === 'slice');
-  const narrowest = Math.min(...probes.map((p) => (p.minimalDistance >= o.closingFloor ? p.minimalDistance : Infinity)));
+  const narrowest = Math.min(...mesh.cuts.map((c) => (c.closed ? Infinity : c.smallest)));
   if (sliced && options.propagator?.tolerance === undefined && narrowest * Math.PI < GAP_OVER_TOLERANCE * propagator.tolerance) {
     propagator = { ...propagator, tolerance: Math.max((narrowest * Math.PI) / GAP_OVER_TOLERANCE, 1e-12) };
     loop = prepareLoop(drive, propagator, corners);
-    probes = probeAll();
+    mesh = meshFor();
   }
-  const { plan, series, nodes: nodes0 } = loop;
-
-  const closed = probes.map((p) => p.minimalDistance < o.closingFloor);
-  const open = gapLabels.map((_, i) => i).filter((i) => !closed[i]);
-  const [foci1, foci2] = focusAxes(open.map((i) => probes[i]), o.initialGrid);
-
-  const history: RefinementStep[][] = gapLabels.map(() => []);
-  const done = gapLabels.map(() => false);
-  const stable = gapLabels.map(() => false);
+  const { plan, series } = loop;
   const notes: string[][] = gapLabels.map(() => []);
   if (sliced) {
-    probes.forEach((probe, i) => {
-      if (!closed[i] && probe.minimalDistance * Math.PI < GAP_OVER_TOLERANCE * propagator.tolerance) {
-        notes[i].push(
-          `the gap (${fmt(probe.minimalDistance)} units π/T) is within ${GAP_OVER_TOLERANCE}× the time-integration tolerance ${fmt(propagator.tolerance)}; tighten options.propagator.tolerance`,
-        );
+    mesh.cuts.forEach((c, i) => {
+      // After the automatic tightening the rebuilt loop may find the cut a little closer: only a margin below half is flagged.
+      const margin = options.propagator?.tolerance === undefined ? GAP_OVER_TOLERANCE / 2 : GAP_OVER_TOLERANCE;
+      if (!c.closed && c.smallest * Math.PI < margin * propagator.tolerance) {
+        notes[i].push(`the distance from the cut to the spectrum (${fmt(c.smallest)} π/T) is within ${margin}× the time-integration tolerance ${fmt(propagator.tolerance)} rad; to settle, tighten numerics.tolerances.propagator`);
       }
     });
   }
-  let active = gapLabels.map((_, i) => i);
-  const sizes = levelSizes(o.initialGrid, o.maxGrid);
-  for (let level = 0; level < sizes.length && active.length > 0; level++) {
-    const n = sizes[level];
-    const grid = {
-      axes: [gradedAxis(n, foci1), gradedAxis(n, foci2)] as [Float64Array, Float64Array],
-      // Magnus slices already form a fine time grid: one more node per slice every second level.
-      nodesPerPiece: nodes0.map((m, p) => m + (plan.pieces[p].kind === 'slice' ? Math.floor(level / 2) : 2 * level)),
-      stencilRadius: o.stencilRadius,
-    };
-    const result = windingOnGrid(plan, series, active.map((i) => gapLabels[i]), grid, sign);
-    active.forEach((gap, j) => {
-      const value = result.values[j];
-      const h = history[gap];
-      h.push({ grid: [n, n, result.timeNodes], value });
-      if (Math.abs(result.imaginary[j]) > o.tolerance) notes[gap].push(`imaginary part ${fmt(result.imaginary[j])} on grid ${n}×${n}`);
-      if (result.closureDefect > 1e-8) notes[gap].push(`loop closes only to ${fmt(result.closureDefect)} on grid ${n}×${n}`);
-      if (closed[gap]) {
-        done[gap] = true;
-        return;
-      }
-      const prev = h.length > 1 ? h[h.length - 2].value : NaN;
-      const near = Math.abs(value - Math.round(value)) <= o.tolerance;
-      if (near && Math.abs(value - prev) <= o.tolerance && Math.round(prev) === Math.round(value)) {
-        stable[gap] = true;
-        done[gap] = true;
-      }
+  const open = gapLabels.map((_, i) => i).filter((i) => !mesh.cuts[i].closed);
+  const history: RefinementStep[][] = gapLabels.map(() => []);
+  const quadrature: (WindingQuadrature | undefined)[] = gapLabels.map(() => undefined);
+  const values = gapLabels.map(() => NaN), errors = gapLabels.map(() => Infinity);
+  let budgetSpent = false;
+  const firstMesh = mesh.cells.length * POINTS_PER_CELL;
+  const tooSmall = firstMesh > o.evaluations;
+  if (tooSmall) {
+    open.forEach((i) =>
+      notes[i].push(`the first mesh (${mesh.cells.length} cells, ${firstMesh} evaluations) exceeds the budget of ${o.evaluations} evaluations; to settle, raise numerics.windingEvaluations to at least ${2 * firstMesh}`),
+    );
+  }
+  if (open.length > 0 && !tooSmall) {
+    const cuts = open.map((i) => gapLabels[i]);
+    // Time rule, checked where each cut is closest to the spectrum and at generic momenta.
+    const probes = [...open.map((i) => mesh.cuts[i].at), [0.1234, 0.5678], [0.731, 0.219]];
+    const time = settleTimeRule(plan, series, cuts, loop.nodes, probes, o.tolerance);
+    const density = windingDensity(plan, series, cuts, time.nodes);
+    const scale = sign / (8 * Math.PI * Math.PI);
+    const im = new Float64Array(cuts.length), dist = new Float64Array(cuts.length);
+    let imaginary = 0;
+    const result = adaptiveCubature({
+      components: cuts.length,
+      integrand: (s1, s2, out) => {
+        density.evaluate(s1, s2, out, im, dist);
+        for (let j = 0; j < cuts.length; j++) imaginary = Math.max(imaginary, Math.abs(im[j]));
+      },
+      cells: mesh.cells,
+      tolerance: cuts.map(() => (QUADRATURE_SHARE * o.tolerance) / Math.abs(scale)),
+      budget: Math.max(o.evaluations - time.evaluations, 2 * POINTS_PER_CELL),
+      checkpoint: (state) => {
+        open.forEach((gap, j) => {
+          history[gap].push({ grid: [state.evaluations], value: state.values[j] * scale, label: `${state.evaluations} evaluations, ${state.cells} cells` });
+        });
+      },
     });
-    active = active.filter((i) => !done[i]);
+    budgetSpent = result.budgetSpent;
+    open.forEach((gap, j) => {
+      values[gap] = result.values[j] * scale;
+      errors[gap] = result.errors[j] * Math.abs(scale);
+      // The last checkpoint is replaced by the nested pair on the final cells.
+      const h = history[gap];
+      if (h.length > 0 && h[h.length - 1].grid[0] === result.evaluations) h.pop();
+      h.push({ grid: [result.evaluations], value: result.gaussValues[j] * scale, label: `7-point Gauss on the final ${result.cells} cells` });
+      h.push({ grid: [result.evaluations], value: values[gap], label: `15-point Kronrod on the final ${result.cells} cells (${result.evaluations} evaluations)` });
+      quadrature[gap] = {
+        evaluations: result.evaluations + time.evaluations,
+        cells: result.cells,
+        meshCells: mesh.cells.length,
+        errorEstimate: errors[gap],
+        raw: values[gap],
+        timeNodes: time.nodes.reduce((x, y) => x + y, 0),
+        timeRuleChange: time.change,
+        minimalDistance: mesh.cuts[gap].smallest,
+        momentumAtMinimum: mesh.cuts[gap].at,
+      };
+    });
+    if (imaginary * Math.abs(scale) > o.tolerance) open.forEach((gap) => notes[gap].push(`imaginary part up to ${fmt(imaginary * Math.abs(scale))} (should vanish)`));
   }
 
   return gapLabels.map((label, i) => {
     const h = history[i];
-    const last = h[h.length - 1];
-    const probe = probes[i];
-    const where = `(${probe.momentumAtMinimum.map((x) => x.toFixed(4)).join(', ')})`;
+    const cut = mesh.cuts[i];
+    const where = `(${cut.at.map((x) => x.toFixed(4)).join(', ')})`;
     let caveat: string | undefined;
-    if (closed[i]) {
+    let stable = false;
+    if (cut.closed) {
       caveat =
-        `the gap at ${label} closes: the spectrum comes within ${fmt(probe.minimalDistance)} (units π/T) of the cut at s = ${where}, ` +
+        `the gap at ${label} closes: the spectrum comes within ${fmt(cut.smallest)} π/T of the cut at s = ${where}, ` +
         `below the closing floor ${fmt(o.closingFloor)}; the winding number is not defined there`;
-    } else if (!stable[i]) {
-      const residual = Math.abs(last.value - Math.round(last.value));
-      caveat =
-        `did not converge: |W − round W| = ${fmt(residual)} (tolerance ${fmt(o.tolerance)}) on the largest grid ${last.grid.join('×')}; ` +
-        `smallest distance from the cut to the spectrum ${fmt(probe.minimalDistance)} (units π/T) at s = ${where}; raise maxGrid`;
+    } else {
+      const value = values[i];
+      const residual = Math.abs(value - Math.round(value));
+      const gauss = h.length > 1 ? h[h.length - 2].value : NaN;
+      stable = Math.round(gauss) === Math.round(value) && errors[i] <= o.tolerance;
+      if (!stable || residual > o.tolerance) {
+        const why = Number.isNaN(value)
+          ? 'the integral was not computed'
+          : errors[i] > o.tolerance
+            ? `the quadrature error estimate ${fmt(errors[i])} exceeds the tolerance ${fmt(o.tolerance)}${budgetSpent ? ` after ${quadrature[i]?.evaluations} evaluations (the budget)` : ''}`
+            : residual > o.tolerance
+              ? `|W − round W| = ${fmt(residual)} exceeds the tolerance ${fmt(o.tolerance)} although the error estimate is ${fmt(errors[i])}`
+              : 'the nested Gauss and Kronrod sums round to different integers';
+        caveat = `did not converge: ${why}; smallest distance from the cut to the spectrum ${fmt(cut.smallest)} π/T at s = ${where}${tooSmall ? '' : '; to settle, raise numerics.windingEvaluations'}`;
+        stable = false;
+      }
     }
     if (notes[i].length > 0) caveat = [caveat, ...notes[i]].filter((x) => x !== undefined).join('; ');
-    return { gap: label, winding: integerEstimate(last.value, o.tolerance, last.grid, h, stable[i], caveat) };
+    const last = h[h.length - 1];
+    const raw = cut.closed ? (last?.value ?? NaN) : values[i];
+    const estimate = integerEstimate(raw, o.tolerance, last ? last.grid : [0], h, stable, caveat);
+    const report: WindingReport = { gap: label, winding: estimate };
+    const q = quadrature[i];
+    if (q !== undefined) report.quadrature = q;
+    return report;
   });
 }

@@ -202,6 +202,59 @@ export function generatorAt(series: GeneratorSeries, s1: number, s2: number, out
 }
 
 /**
+ * Lipschitz bound of the loop's quasienergies in momentum (units π/T per unit
+ * of reduced momentum), per direction: Σ_pieces τ_p Σ_n 2π|n_μ| ‖C_n‖_F / π, since
+ * ‖∂_μG_p‖ ≤ Σ_n 2π|n_μ|‖C_n‖ and ‖∂_μU(T′)‖ ≤ Σ_p τ_p ‖∂_μG_p‖
+ * (evolution/momentum-lipschitz.ts gives the argument for the drive itself; the
+ * loop's Magnus pieces weight H differently, so the bound is taken from them).
+ */
+export function loopLipschitz(series: GeneratorSeries[], plan: LoopPlan): [number, number] {
+  const bound: [number, number] = [0, 0];
+  const nn = (series[0]?.size ?? 0) ** 2;
+  plan.pieces.forEach((piece, p) => {
+    const sr = series[p];
+    for (let q = 0; q < sr.n1.length; q++) {
+      let f = 0;
+      for (let e = 0; e < nn; e++) f += sr.re[q * nn + e] ** 2 + sr.im[q * nn + e] ** 2;
+      const norm = Math.sqrt(f);
+      bound[0] += piece.duration * 2 * Math.abs(sr.n1[q]) * norm;
+      bound[1] += piece.duration * 2 * Math.abs(sr.n2[q]) * norm;
+    }
+  });
+  return bound;
+}
+
+/**
+ * G(s) and its momentum derivatives ∂G/∂s₁, ∂G/∂s₂ from the series, exactly:
+ * each coefficient carries e^{−2πi s·n}, whose derivative along s_μ is −2πi n_μ times it.
+ */
+export function generatorGradientAt(series: GeneratorSeries, s1: number, s2: number, g: ComplexMatrix, d1: ComplexMatrix, d2: ComplexMatrix): void {
+  const nn = series.size * series.size;
+  for (const m of [g, d1, d2]) {
+    m.re.fill(0);
+    m.im.fill(0);
+  }
+  for (let q = 0; q < series.n1.length; q++) {
+    const n1 = series.n1[q], n2 = series.n2[q];
+    const arg = -2 * Math.PI * (s1 * n1 + s2 * n2);
+    const c = Math.cos(arg), s = Math.sin(arg);
+    const base = q * nn;
+    const f1 = -2 * Math.PI * n1, f2 = -2 * Math.PI * n2;
+    for (let e = 0; e < nn; e++) {
+      const xr = series.re[base + e], xi = series.im[base + e];
+      const yr = xr * c - xi * s, yi = xr * s + xi * c;
+      g.re[e] += yr;
+      g.im[e] += yi;
+      // ∂(y e^{iarg}) = −2πi n y: (re, im) → (−im, re) times 2π n with the sign of f.
+      d1.re[e] -= f1 * yi;
+      d1.im[e] += f1 * yr;
+      d2.re[e] -= f2 * yi;
+      d2.im[e] += f2 * yr;
+    }
+  }
+}
+
+/**
  * U(s, T) as the product of the pieces' exponentials, from the series: the same
  * operator the winding integral closes its loop on.
  */

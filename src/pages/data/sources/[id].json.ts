@@ -1,11 +1,11 @@
 // Download: the model file exactly as it was verified.
 import type { APIRoute } from 'astro';
-import { loadSiteData, modelSource } from '../../../site/data.ts';
+import { publishedModels } from '../../../site/pages.ts';
+import { sourceText } from '../../../site/model-source.ts';
 
 export function getStaticPaths() {
-  const { records } = loadSiteData();
-  return [...records.values()]
-    .map((record) => ({ params: { id: record.id }, props: { source: modelSource(record) } }))
+  return publishedModels()
+    .map((record) => ({ params: { id: record.id }, props: { source: sourceText(record) } }))
     .filter((path) => path.props.source !== null);
 }
 
