@@ -121,15 +121,23 @@ describe('docs/worked-example.md: the Haldane sheet numbers derived by hand', ()
     expect(pi.at).toEqual([0, 0]);
   });
 
-  it('gap tolerance: ½ · π · (band width) / 24', () => {
-    const gap = record('haldane-sheet').analysis!.gaps.find((g) => g.label === 0)!;
-    const top = (Math.sqrt(9 * t1 * t1 + M * M) * T) / Math.PI, edge = (Math.abs(M - 3 * Math.sqrt(3) * t2) * T) / Math.PI;
-    close(gap.tolerance, (0.5 * Math.PI * (top - edge)) / 24);
+  it('openness: each certified lower bound lies below the hand-derived minimal gap and above the default tolerance 10⁻³', () => {
+    const gaps = record('haldane-sheet').analysis!.gaps;
+    const exact = new Map([
+      [0, (2 * Math.abs(M - 3 * Math.sqrt(3) * t2) * T) / Math.PI],
+      [1, 2 * (1 - (Math.sqrt(9 * t1 * t1 + M * M) * T) / Math.PI)],
+    ]);
+    for (const gap of gaps) {
+      expect(gap.tolerance).toBe(1e-3);
+      expect(gap.lowerBound!).toBeLessThanOrEqual(exact.get(gap.label)! * (1 + 1e-9));
+      expect(gap.lowerBound!).toBeGreaterThan(gap.tolerance);
+      expect(gap.open).toBe(true);
+    }
   });
 
-  it('band path: ±√(t₁² + M²)T/π at b₁/2 (rounded to 1e-5 in records)', () => {
+  it('band path: ±√(t₁² + M²)T/π at the M point b₁/2 (rounded to 1e-5 in records)', () => {
     const path = record('haldane-sheet').analysis!.bandPath!;
-    const corner = path.corners.find((c) => c.label === 'b₁/2')!.index;
+    const corner = path.corners.find((c) => c.label === 'M')!.index;
     expect(Math.abs(path.quasienergies[corner][1] - (Math.sqrt(t1 * t1 + M * M) * T) / Math.PI)).toBeLessThanOrEqual(5e-6);
   });
 });
