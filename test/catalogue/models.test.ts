@@ -1,4 +1,8 @@
-/** The demo inventory in models/ must load cleanly: no errors, no warnings. */
+/**
+ * The demo inventory in models/ must load cleanly: no errors, and no warnings
+ * except the one the collaborator's story is about (a left-handed basis, the
+ * source of its sign error; see models/collaborator-honeycomb-drive.json).
+ */
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { loadModels } from '../../src/catalogue/load.ts';
@@ -8,13 +12,16 @@ describe('models/', async () => {
   const report = await loadModels(['models']);
 
   it('holds demo models', () => {
-    expect(files.length).toBeGreaterThanOrEqual(2);
+    expect(files.length).toBeGreaterThanOrEqual(20);
   });
 
   it('loads every file with no diagnostics at all', () => {
     expect(report.failures).toEqual([]);
     expect(report.models.map((m) => m.file)).toEqual(files.map((f) => `models/${f}`));
-    for (const model of report.models) expect(model.warnings, model.file).toEqual([]);
+    for (const model of report.models) {
+      const expected = model.id === 'collaborator-honeycomb-drive' ? [expect.stringMatching(/^left-handed basis/)] : [];
+      expect(model.warnings.map((w) => w.message), model.file).toEqual(expected);
+    }
   });
 
   it.each(files)('%s points editors at the schema and names itself after the file', (file) => {
