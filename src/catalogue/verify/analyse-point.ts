@@ -57,6 +57,7 @@ export function analysePoint(
     skip: options.skip ?? new Set(),
     symmetricTimes: options.symmetricTimes,
     ribbonDirections,
+    edgeGaps: claims.flatMap((c) => (c.kind === 'edge-modes' ? [c.gap] : [])),
     ...(cutClaim?.kind === 'chern' ? { cut: cutClaim.cut } : {}),
   };
   const dimension = compiled.drive.dimension;

@@ -23,6 +23,8 @@ export interface AnalysisRequest {
   cut?: number;
   /** Finite directions of the ribbons claims refer to (2D); empty: the hint's or the default one. */
   ribbonDirections: number[];
+  /** Gaps (units π/T) whose edge counts claims name: only these may widen a ribbon (2D). */
+  edgeGaps: number[];
 }
 
 export interface EngineSet {

@@ -21,6 +21,7 @@ export function sheetOptions(request: AnalysisRequest): SheetOptions {
       directions: request.ribbonDirections.length > 0 ? request.ribbonDirections : [hints?.ribbon?.finiteAlong ?? DEFAULT_FINITE_ALONG],
       ...(hints?.ribbon?.width !== undefined ? { width: hints.ribbon.width } : {}),
       ...(hints?.ribbon?.maxWidth !== undefined ? { maxWidth: hints.ribbon.maxWidth } : {}),
+      widenFor: request.edgeGaps,
       ...(hints?.ribbon?.momenta !== undefined ? { momenta: hints.ribbon.momenta } : {}),
     },
   };

@@ -9,7 +9,10 @@
  * and, while a count is unsettled because ξ asks for more (the decay fitted on
  * the crossing states, or the bulk estimate when nothing crosses), is widened
  * to WIDTH_MARGIN·6·ξ, at most MAX_WIDENINGS times and never beyond the width
- * budget (default DEFAULT_RIBBON_STATES states). The bulk estimate is not used
+ * budget (default DEFAULT_RIBBON_STATES states). Only the gaps in `widenFor`
+ * (default: every gap) may widen the ribbon: a portrait nobody claims an edge
+ * count of keeps the starting width, since near a transition ξ is large and
+ * the widest ribbon costs minutes for a count no verdict reads. The bulk estimate is not used
  * to widen in advance: it is taken where the gap is smallest, and the states
  * that cross the label often decay much faster. Every width tried is
  * reported, and a count still too narrow at the budget says so.
@@ -44,6 +47,8 @@ export const MAX_WIDENINGS = 3;
 /** Momenta and size (states) of the plotted spectrum of a ribbon counted on the banded route. */
 export const PLOT_MOMENTA = 64;
 export const PLOT_STATES = 120;
+/** Gap labels closer than this (units π/T) name the same gap. */
+const LABEL_MATCH = 1e-9;
 /** Largest accepted residual of the eigenpairs near a label (banded route). */
 const WINDOW_TOLERANCE = 1e-10;
 
@@ -59,6 +64,8 @@ export interface RibbonCountOptions {
   width?: number;
   /** Largest width the engine widens to (default DEFAULT_RIBBON_STATES / orbitals per cell). */
   maxWidth?: number;
+  /** Gap labels (units π/T) whose unsettled counts may widen the ribbon (default: every gap). */
+  widenFor?: number[];
   /** Cells per edge region (default ⌊width/4⌋). */
   edgeCells?: number;
   /** Momenta of the dense route (default 200); least base momenta of the banded route. */
@@ -114,12 +121,13 @@ export function ribbonEdgeCounts(drive: LatticeDrive, gaps: RibbonGap[], options
     // An unsettled count asks for ξ = the larger of the fitted decay and its gap's bulk estimate (states that do
     // not localise on a narrow ribbon, or hybridise across it, are the usual symptom of too narrow a ribbon).
     const demand = (c: EdgeCountReport) => Math.max(Number.isFinite(c.decayLength) ? c.decayLength : 0, gaps.find((g) => g.arc.label === c.gap)?.bulkDecayLength ?? 0);
-    const needed = Math.max(0, ...attempt.counts.filter((c) => !c.settled && Number.isFinite(demand(c)) && width < ratio * demand(c)).map((c) => wanted(demand(c))));
+    const widens = (c: EdgeCountReport) => options.widenFor === undefined || options.widenFor.some((label) => Math.abs(label - c.gap) < LABEL_MATCH);
+    const needed = Math.max(0, ...attempt.counts.filter((c) => widens(c) && !c.settled && Number.isFinite(demand(c)) && width < ratio * demand(c)).map((c) => wanted(demand(c))));
     const next = Math.min(budget, needed);
     if (needed === 0 || next <= width || round >= MAX_WIDENINGS) {
       if (needed > width) {
         for (const c of attempt.counts) {
-          if (!c.settled && width < ratio * demand(c)) {
+          if (widens(c) && !c.settled && width < ratio * demand(c)) {
             c.reason = `${c.reason ?? 'unsettled'}; the width budget (${budget} cells) allows no wider ribbon: raise numerics.ribbon.maxWidth`;
           }
         }

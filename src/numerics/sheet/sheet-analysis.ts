@@ -39,6 +39,8 @@ export interface SheetRibbonOptions {
   width?: number;
   /** Width budget in cells (default 16000 states' worth). */
   maxWidth?: number;
+  /** Gap labels (units π/T) whose counts may widen the ribbon (default: every gap; ribbon-edge-counts.ts). */
+  widenFor?: number[];
   /** Cells per edge region (default ⌊width/4⌋). */
   edgeCells?: number;
   /** Momenta along the edge (default 200 on the dense route). */
@@ -201,6 +203,7 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
           finiteDirection: direction,
           ...(options.ribbon?.width !== undefined ? { width: options.ribbon.width } : {}),
           ...(options.ribbon?.maxWidth !== undefined ? { maxWidth: options.ribbon.maxWidth } : {}),
+          ...(options.ribbon?.widenFor !== undefined ? { widenFor: options.ribbon.widenFor } : {}),
           ...(options.ribbon?.edgeCells !== undefined ? { edgeCells: options.ribbon.edgeCells } : {}),
           ...(options.ribbon?.momenta !== undefined ? { momenta: options.ribbon.momenta } : {}),
           ...(options.ribbon?.denseStates !== undefined ? { denseStates: options.ribbon.denseStates } : {}),

@@ -27,7 +27,7 @@ function pointOf(model: LoadedModel) {
   return analysePoint(model, normalizeClaims(doc, evaluate), realEngines, DEFAULT_POLICY, { symmetricTimes });
 }
 
-const request = (hints: NumericsHints): AnalysisRequest => ({ labels: [], hints, skip: new Set(), symmetricTimes: [], ribbonDirections: [] });
+const request = (hints: NumericsHints): AnalysisRequest => ({ labels: [], hints, skip: new Set(), symmetricTimes: [], ribbonDirections: [], edgeGaps: [] });
 
 function chainModel(numerics: NumericsHints) {
   const file = 'test/fixtures/verification/two-step-chain-correct.json';

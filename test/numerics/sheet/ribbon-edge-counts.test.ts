@@ -119,4 +119,18 @@ describe('width chosen by the physics', () => {
       ['0', 'low', -1], ['0', 'high', 1], ['1', 'low', 0], ['1', 'high', 0],
     ]);
   });
+
+  it('widens only for the gaps it is asked to settle', () => {
+    // Same QWZ ribbon (ξ ≈ 9.5 cells at ε = 0): asked to settle only the π gap, whose counts are settled at
+    // 24 cells, it keeps the starting width and leaves the gap at 0 unsettled; asked for the gap at 0 it widens.
+    const drive = qwzDrive(1.9, 0.5);
+    const gaps = gapsOf(drive)(0);
+    const piOnly = ribbonEdgeCounts(drive, gaps, { finiteDirection: 0, width: 24, widenFor: [1] });
+    expect(piOnly.widths).toEqual([24]);
+    expect(piOnly.counts.some((c) => c.gap === 0 && !c.settled)).toBe(true);
+    expect(piOnly.counts.every((c) => c.gap !== 0 || !/width budget/.test(c.reason ?? ''))).toBe(true);
+    const zero = ribbonEdgeCounts(drive, gaps, { finiteDirection: 0, width: 24, widenFor: [0] });
+    expect(zero.widths.length).toBeGreaterThan(1);
+    expect(zero.counts.every((c) => c.settled)).toBe(true);
+  });
 });

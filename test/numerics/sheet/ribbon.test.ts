@@ -5,6 +5,7 @@ import { circularDifference } from '../../../src/numerics/quasienergy-bands.ts';
 import { FloquetSampler } from '../../../src/numerics/quasienergy-bands.ts';
 import { truncateDrive } from '../../../src/numerics/supercell.ts';
 import { qwzDrive } from '../../support/drives/qwz.ts';
+import { threeStepHoneycombDrive } from '../../support/drives/honeycomb.ts';
 
 function expectWithin(label: string, actual: number, expected: number, tolerance: number): void {
   const delta = Math.abs(actual - expected);
@@ -114,5 +115,40 @@ describe('ribbon spectra of static drives', () => {
     }
     expect(fast.eigenResidual).toBeLessThan(1e-10);
     expect(fast.propagatorAccuracy).toBe(0);
+  });
+});
+
+describe('ribbon spectrum of a drive with flat, degenerate bulk bands', () => {
+  // Three-step honeycomb drive at complete transfer, Jτ = π/2, no sublattice offset (Kitagawa, Berg, Rudner,
+  // Demler, PRB 82, 235114 (2010)): every bulk particle closes a loop, so U has eigenvalues ±i only (flat bands
+  // at ε = ±1/2 in units of π/T), 2(width − 2) states of a 12-cell ribbon sit exactly there, and the edge
+  // carries one chiral mode in each gap. The large degenerate groups once made the banded eigensolver
+  // project onto a non-invariant subspace and stop the whole model with an error.
+  it('computes every momentum: 20 flat bulk states at ±1/2 and one edge state in each half of each gap', () => {
+    const drive = threeStepHoneycombDrive({ hopping: Math.PI / 2, stepDuration: 1 });
+    const r = ribbonSpectrum(drive, { finiteDirection: 1, width: 12, momenta: 80 });
+    for (const sample of r.samples) {
+      const q = Array.from(sample.quasienergies);
+      expect(q).toHaveLength(24);
+      expect(q.filter((e) => Math.abs(Math.abs(e) - 0.5) < 1e-9)).toHaveLength(20);
+      const rest = q.filter((e) => Math.abs(Math.abs(e) - 0.5) >= 1e-9);
+      const bins = [[-1, -0.5], [-0.5, 0], [0, 0.5], [0.5, 1]].map(([lo, hi]) => rest.filter((e) => e > lo && e <= hi).length);
+      expect(bins).toEqual([1, 1, 1, 1]);
+    }
+  });
+
+  it('computes the other cut too, where the degenerate groups are largest (flat states exactly at ±1/2)', () => {
+    // Finite along a₁ the bulk loops close for all but one state per gap: at least 2(width − 2) states are flat
+    // (measured: 2(width − 1)), and whatever is left lies inside the gaps.
+    const drive = threeStepHoneycombDrive({ hopping: Math.PI / 2, stepDuration: 1 });
+    for (const width of [12, 16]) {
+      const r = ribbonSpectrum(drive, { finiteDirection: 0, width, momenta: 40 });
+      for (const sample of r.samples) {
+        const q = Array.from(sample.quasienergies);
+        expect(q).toHaveLength(2 * width);
+        expect(q.filter((e) => Math.abs(Math.abs(e) - 0.5) < 1e-9).length).toBeGreaterThanOrEqual(2 * (width - 2));
+        expect(q.every((e) => Math.abs(Math.abs(e) - 0.5) < 1e-9 || Math.abs(Math.abs(e) - 0.5) > 1e-6)).toBe(true);
+      }
+    }
   });
 });
