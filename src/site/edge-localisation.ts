@@ -17,6 +17,9 @@ export interface EdgeLocalisationField {
   measure: string;
   /** A state counts as localised at an edge when its value there reaches this. */
   threshold: number;
+  /** Cells of each edge region the weight p is taken over, and the weight u an evenly spread state has there (when recorded). */
+  cells?: number;
+  uniformWeight?: number;
   /** Per state, same shape as quasienergies: the measure at the low and at the high edge. */
   low: number[][];
   high: number[][];
@@ -28,7 +31,14 @@ export function localisationField(spectrum: SpectrumRecord): EdgeLocalisationFie
   if (!candidate || typeof candidate !== 'object') return null;
   const f = candidate as Partial<EdgeLocalisationField>;
   if (typeof f.threshold !== 'number' || !Array.isArray(f.low) || !Array.isArray(f.high)) return null;
-  return { measure: typeof f.measure === 'string' ? f.measure : 'edge localisation', threshold: f.threshold, low: f.low, high: f.high };
+  return {
+    measure: typeof f.measure === 'string' ? f.measure : 'edge localisation',
+    threshold: f.threshold,
+    ...(typeof f.cells === 'number' ? { cells: f.cells } : {}),
+    ...(typeof f.uniformWeight === 'number' ? { uniformWeight: f.uniformWeight } : {}),
+    low: f.low,
+    high: f.high,
+  };
 }
 
 /** Edge class of every state, or null when the record has no honest measure to colour by. */
@@ -42,4 +52,26 @@ export function edgeClasses(spectrum: SpectrumRecord): EdgeClass[][] | null {
       return low && high ? 'both' : low ? 'low' : high ? 'high' : 'bulk';
     }),
   );
+}
+
+/** The colouring rule in one or two sentences, for the caption under a spectrum. */
+export function colouringSentence(field: EdgeLocalisationField | null): string {
+  if (!field) {
+    return 'Every state is drawn alike: this record carries no edge-localisation measure that extended bulk states cannot pass, so states are not coloured by edge. The edge counts in the claims table rest on the engine’s own crossing analysis, shown in their certificates.';
+  }
+  if (field.cells === undefined || field.uniformWeight === undefined) {
+    return `A state is drawn as an edge state when its edge-localisation measure (${field.measure}) reaches ${field.threshold}.`;
+  }
+  const u = Number(field.uniformWeight.toPrecision(3));
+  return (
+    `A state is drawn as an edge state when its excess weight at an edge, m = (p − u)/(1 − u), reaches ${field.threshold}: ` +
+    `p is its weight in the outer ${field.cells} cell${field.cells === 1 ? '' : 's'} of that edge and u = ${u} what an evenly spread state has there, so extended bulk states stay far below the threshold.`
+  );
+}
+
+/** 2nd, 3rd, 11th, 22nd. */
+export function ordinal(n: number): string {
+  const tens = n % 100;
+  const suffix = tens >= 11 && tens <= 13 ? 'th' : ({ 1: 'st', 2: 'nd', 3: 'rd' } as Record<number, string>)[n % 10] ?? 'th';
+  return `${n}${suffix}`;
 }

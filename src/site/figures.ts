@@ -5,7 +5,7 @@
  */
 import type { ModelRecord } from '../catalogue/records/model-record.ts';
 import { edgeName, gapSubscript, quasienergyText } from '../catalogue/vocabulary.ts';
-import { edgeClasses, localisationField } from './edge-localisation.ts';
+import { colouringSentence, edgeClasses, localisationField, ordinal } from './edge-localisation.ts';
 import { gapOrder, invariantProfile } from './invariants.ts';
 import { latticeGeometry } from './lattice.ts';
 import type { ModelSource } from './model-source.ts';
@@ -99,13 +99,15 @@ export function spectrumFigures(record: ModelRecord): SpectrumFigure[] {
           { swatch: dotSwatch(BULK_COLOUR), text: 'not localised at an edge (bulk)' },
         ]
       : [];
-    const colouring = field
-      ? `A state is drawn as an edge state when ${field.measure} reaches ${field.threshold}.`
-      : 'Every state is drawn alike: this record carries no edge-localisation measure that extended bulk states cannot pass, so states are not coloured by edge. The edge counts in the claims table rest on the engine’s own crossing analysis, shown in their certificates.';
-    const stride = s.stride > 1 ? ` Every ${s.stride}th computed momentum is shown.` : '';
+    const colouring = colouringSentence(field);
+    const stride = s.stride > 1 ? ` Every ${ordinal(s.stride)} computed momentum is shown.` : '';
+    const coverage =
+      s.coverage === 'near-gap-labels'
+        ? ' Only the states nearest ε = 0 and ε = π/T were computed (a long chain is solved near the gap labels only), so the bulk bands are not drawn whole.'
+        : '';
     const caption = ribbon
       ? `Quasienergies of a ribbon ${s.width} cells wide, periodic along ${along}, against the momentum along the edge (k∥·${along} from 0 to 2π). Dashed lines: open bulk gaps. ${colouring}${stride}`
-      : `Quasienergies of an open chain of ${s.width} cells, ordered by ε. Dashed lines: open bulk gaps; states inside a gap are end modes. ${colouring}`;
+      : `Quasienergies of an open chain of ${s.width} cells, ordered by ε. Dashed lines: open bulk gaps; states inside a gap are end modes. ${colouring}${coverage}`;
     return {
       anchor: ribbon ? `ribbon-${(s.finiteDirection ?? 1) + 1}` : 'open-chain',
       title,

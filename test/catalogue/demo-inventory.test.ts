@@ -97,6 +97,13 @@ describe('demo inventory: the status each story intends', () => {
     expect(unsettled.map((c) => c.claim).sort()).toEqual(['band-0/chern', 'band-1/chern', 'gap-1/winding']);
     // The reason names the π gap (wording differs between the gap-openness rules of the engine).
     for (const c of unsettled) expect(c.message).toMatch(/ε = π\/T/);
+    // Every unsettled claim offers both remedies: move away from the transition, or lower the gap tolerance
+    // below the measured gap (which is what the description does, and what the next test checks settles it).
+    for (const c of unsettled) {
+      expect(c.message).toMatch(/move the parameter point away/);
+      expect(c.message).toMatch(/lower numerics\.tolerances\.gap below the measured/);
+      expect(c.hint).toMatch(/numerics\.tolerances\.gap/);
+    }
     expect(r.claims.find((c) => c.claim === 'gap-0/winding')!.outcome).toBe('confirmed');
   });
 

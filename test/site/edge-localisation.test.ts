@@ -6,7 +6,7 @@
 // per edge region of W/4 cells).
 import { describe, expect, it } from 'vitest';
 import type { SpectrumRecord } from '../../src/catalogue/records/model-record.ts';
-import { edgeClasses } from '../../src/site/edge-localisation.ts';
+import { colouringSentence, edgeClasses, localisationField, ordinal } from '../../src/site/edge-localisation.ts';
 import { spectrumPlot } from '../../src/site/plots/spectrum-plot.ts';
 
 const width = 20;
@@ -41,5 +41,21 @@ describe('edge colouring', () => {
     expect(classes).toEqual([['bulk', 'low', 'high'], ['bulk', 'both', 'bulk']]);
     const svg = spectrumPlot({ title: 't', momenta: measured.momenta, quasienergies: measured.quasienergies, classes, gapLabels: [0] });
     for (const kind of ['low', 'high', 'both']) expect(svg).toContain(`class="state-${kind}"`);
+  });
+
+  it('states the rule in the caption with the numbers the record carries', () => {
+    const record = {
+      ...spectrum,
+      edgeLocalisation: { measure: 'excess weight', cells: 3, uniformWeight: 0.15, threshold: 0.5, low: [[0, 0, 0], [0, 0, 0]], high: [[0, 0, 0], [0, 0, 0]] },
+    } as SpectrumRecord;
+    const sentence = colouringSentence(localisationField(record));
+    expect(sentence).toContain('reaches 0.5');
+    expect(sentence).toContain('outer 3 cells');
+    expect(sentence).toContain('u = 0.15');
+    expect(colouringSentence(null)).toMatch(/drawn alike/);
+  });
+
+  it('writes ordinals as English does (2nd, 3rd, 11th, 21st, 112th)', () => {
+    expect([1, 2, 3, 4, 11, 12, 13, 21, 22, 23, 112].map(ordinal)).toEqual(['1st', '2nd', '3rd', '4th', '11th', '12th', '13th', '21st', '22nd', '23rd', '112th']);
   });
 });

@@ -1,8 +1,8 @@
 /**
  * The engine fingerprint that every cache key includes: a constant version that
  * the team bumps when results change meaning, plus a hash of the numerics
- * sources read at run time, so that editing any file under src/numerics
- * invalidates every cached result without anyone remembering to bump a number.
+ * sources read at run time, so that editing any file under src/numerics or
+ * src/catalogue/verify invalidates every cached result without anyone remembering to bump a number.
  */
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
@@ -45,13 +45,27 @@ export function hashSourceTree(root: string): { hash: string; files: number } {
 
 const memo = new Map<string, EngineFingerprint>();
 
-/** Fingerprint of the numerics under `root` (default: src/numerics of the working directory). */
-export function engineFingerprint(root: string = join(process.cwd(), 'src', 'numerics')): EngineFingerprint {
-  const hit = memo.get(root);
+/**
+ * Fingerprint of the sources under `root`; by default src/numerics together with
+ * src/catalogue/verify of the working directory, since the verdicts, their
+ * messages and remedies are cached with the numbers and must not outlive a
+ * change of the code that writes them.
+ */
+export function engineFingerprint(root?: string): EngineFingerprint {
+  const key = root ?? '';
+  const hit = memo.get(key);
   if (hit) return hit;
-  const { hash, files } = hashSourceTree(root);
-  const fingerprint = { version: ENGINE_VERSION, numericsHash: hash, files };
-  memo.set(root, fingerprint);
+  let fingerprint: EngineFingerprint;
+  if (root !== undefined) {
+    const { hash, files } = hashSourceTree(root);
+    fingerprint = { version: ENGINE_VERSION, numericsHash: hash, files };
+  } else {
+    const trees = [join(process.cwd(), 'src', 'numerics'), join(process.cwd(), 'src', 'catalogue', 'verify')].map(hashSourceTree);
+    const combined = createHash('sha256');
+    for (const t of trees) combined.update(`${t.hash}\0`);
+    fingerprint = { version: ENGINE_VERSION, numericsHash: combined.digest('hex'), files: trees.reduce((n, t) => n + t.files, 0) };
+  }
+  memo.set(key, fingerprint);
   return fingerprint;
 }
 

@@ -23,6 +23,7 @@
  */
 import type { PortraitEntry } from './sheet-verdicts.ts';
 import { formatNumber } from './format.ts';
+import { gapSubscript, quasienergyText } from '../vocabulary.ts';
 
 export type AnomalousClass = 'chern-trivial-anomalous' | 'anomalous' | 'not-anomalous' | 'undetermined';
 
@@ -55,7 +56,8 @@ export function classifySheet(entries: PortraitEntry[]): AnomalousFlag {
   if (zero) return { classification: 'not-anomalous', reason: `${zero.label} is 0` };
   const unsettled = perGap.find((g) => g.value === null);
   if (unsettled) return { classification: 'undetermined', reason: `${unsettled.label} is unsettled` };
-  const values = perGap.map((g) => (g.source === 'W' ? `W = ${g.value}` : `|edge count| = ${g.value}`)).join(', ');
+  // Each value names its gap (W_0 = 1, W_π = 1), so two gaps with the same W do not read as one repeated.
+  const values = perGap.map((g) => (g.source === 'W' ? `W_${gapSubscript(g.gap)} = ${g.value}` : `|edge count| at ε = ${quasienergyText(g.gap)} = ${g.value}`)).join(', ');
   if (cherns.length > 0 && cherns.every((c) => c.settled && c.value === 0)) {
     return { classification: 'chern-trivial-anomalous', reason: `every gap carries chiral modes (${values}) and every band has C = 0` };
   }

@@ -47,7 +47,14 @@ export function gapReason(g: GapEvidence, what = 'the gap'): string {
   if (g.bound === 'none' && g.minimalGap > g.tolerance) return `${name} is ${formatNumber(g.minimalGap)} π/T${at} but has no certified lower bound`;
   const measured = `${name} is ${formatNumber(g.minimalGap)} π/T${at}, not above ${tol}`;
   if (g.nearTransition || g.minimalGap <= GAP_TOLERANCE_LIMIT) {
-    return `${measured}: it is small against the bandwidth, so the model sits at or near a phase transition; to settle, move the parameter point away from the phase transition`;
+    const transition = `${measured}: it is small against the bandwidth, so the model sits at or near a phase transition; to settle, move the parameter point away from the phase transition`;
+    // A small gap can be the point of the model (a near-critical phase): the tolerance may go down towards
+    // the measured gap, never below the hard limit the schema enforces; openness then still needs a
+    // certified lower bound above the new tolerance.
+    const suggested = g.minimalGap / 2;
+    return suggested >= GAP_TOLERANCE_LIMIT
+      ? `${transition}, or, if a gap this small is the physics meant, lower numerics.tolerances.gap below the measured ${formatNumber(g.minimalGap)} π/T (for instance to ${formatNumber(Number(suggested.toPrecision(1)))}, hard limit ${formatNumber(GAP_TOLERANCE_LIMIT)}), and the engine will try to certify the gap above it`
+      : transition;
   }
   return `${measured}; to settle, if it is a genuine gap, lower numerics.tolerances.gap below ${formatNumber(g.minimalGap)} π/T (hard limit ${formatNumber(GAP_TOLERANCE_LIMIT)})`;
 }

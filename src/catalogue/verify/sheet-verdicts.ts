@@ -12,6 +12,7 @@ import type { GapEvidence } from './certificate.ts';
 import { emptyCertificate } from './certificate.ts';
 import type { NormalizedClaim } from './claims.ts';
 import { gapKey } from './claims.ts';
+import { gapReason } from './evidence.ts';
 import type { CountObservation, SettledInteger } from './evidence.ts';
 import { countAtTwoSizes, countEvidence, judgeEstimate } from './evidence.ts';
 import { formatNumber, formatQuasienergy, formatRawValue } from './format.ts';
@@ -274,14 +275,17 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
           certificate.gaps = p.gaps.map((g) => gapEvidence(p, g.label, policy));
           // Fewer band groups than claimed bands means a gap the claims rely on is closed (bands
           // touch and merge into one group): the band a claim names is then not a band computed.
+          // A cut gap that was found but is not counted as open gets the gap's own reason and remedy.
+          const found = findGap(p.gaps, claim.cut);
+          const cutReason = found ? gapReason(gapEvidence(p, claim.cut, policy), 'the cut gap') : noGapReason(p, claim.cut);
           const why = !ordered
-            ? `the cut must be an open gap, but ${noGapReason(p, claim.cut)}`
+            ? `the cut must be an open gap, but ${cutReason}`
             : `the file claims ${claimedBands} band(s) above the cut at ${formatQuasienergy(claim.cut)}, but ${ordered.length} band group(s) lie between open gaps (bands that touch count as one group; open gaps: ${p.gaps.filter((g) => g.open).map((g) => formatQuasienergy(g.label)).join(', ') || 'none'}); to settle, claim one Chern number per band group, or move the parameter point to where the gaps between the claimed bands open`;
           certificate.notes.push(why);
           verdicts.push({
             claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.cut, outcome: 'unsettled', claimed: claim.value,
             computed: null, estimate: null, message: `The Chern number of band ${claim.band + 1} above the cut is ill-defined: ${why}.`,
-            hint: 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch (see the gaps in the certificate)', certificate,
+            hint: !ordered && found ? why.slice(why.lastIndexOf('to settle, ') + 'to settle, '.length) : 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch (see the gaps in the certificate)', certificate,
           });
           break;
         }

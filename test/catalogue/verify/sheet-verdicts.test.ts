@@ -95,7 +95,7 @@ describe('verdicts on a two-dimensional portrait', () => {
       ['gap-0/winding', 1, true],
       ['gap-1/winding', 1, false],
     ]);
-    expect(classifySheet(entries).classification).toBe('chern-trivial-anomalous');
+    expect(classifySheet(entries)).toMatchObject({ classification: 'chern-trivial-anomalous', reason: expect.stringContaining('(W_0 = 1, W_π = 1)') });
     const chernPhase = judgeSheet(twoBandSheet({ c: [-1, 1], w: [1, 0] }), [], DEFAULT_POLICY).entries;
     expect(classifySheet(chernPhase)).toMatchObject({ classification: 'not-anomalous', reason: 'winding W at ε = π/T is 0' });
     const nearCritical = judgeSheet(twoBandSheet({ gap0: 0 }), [], DEFAULT_POLICY).entries;
