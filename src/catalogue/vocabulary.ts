@@ -124,7 +124,7 @@ export interface QuantityContext {
  * Names a claim or computed quantity by its id (same scheme for claims,
  * portrait entries and sweep quantities): gap-1/winding, gap-0/edge-1-low,
  * band-0/chern, gap-1/invariant, gap-1/end-modes, gap-0/minimal-gap,
- * anomalous, symmetry/chiral, frame-first/winding. Unknown ids come back as
+ * anomalous, symmetry/chiral, symmetry-class, frame-first/winding. Unknown ids come back as
  * they are, so a new kind of claim is never hidden.
  */
 export function quantityName(id: string, context: QuantityContext = {}): QuantityName {
@@ -167,6 +167,7 @@ export function quantityName(id: string, context: QuantityContext = {}): Quantit
     return { symbol: `ν${prime}`, words: `ν${prime}, winding in the ${m[1]} symmetric time frame`, gap: null, family: 'frame-winding' };
   }
   if (bare === 'anomalous') return { symbol: null, words: 'anomalous phase', gap: null, family: 'anomalous' };
+  if (bare === 'symmetry-class') return { symbol: null, words: 'symmetry class (Altland–Zirnbauer)', gap: null, family: 'symmetry-class' };
   return { symbol: null, words: id, gap: null, family: 'other' };
 }
 

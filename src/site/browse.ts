@@ -3,6 +3,7 @@
  * and tag; the anomalous phases; and what needs a reviewer's attention, with
  * the reason for every claim that is not confirmed.
  */
+import { separateHint } from './verdict-hint.ts';
 import type { ModelRecord } from '../catalogue/records/model-record.ts';
 import { quantityName, STATUS_MEANING } from '../catalogue/vocabulary.ts';
 import { inventoryRow } from './inventory.ts';
@@ -96,7 +97,7 @@ export function attentionItems(records: ModelRecord[]): AttentionItem[] {
           name: quantityName(v.claim, { symmetryClass: r.model?.symmetryClass, cut: v.kind === 'chern' ? v.gap : null }).words,
           outcome: v.outcome,
           message: v.message,
-          hint: v.hint,
+          hint: separateHint(v.message, v.hint),
           anchor: `claim-${v.claim.replace(/[^a-z0-9]+/gi, '-').replace(/^-|-$/g, '')}`,
         })),
       problems: r.status === 'invalid' ? r.diagnostics.filter((d) => d.severity === 'error').map((d) => `${d.file}:${d.line}:${d.column} ${d.pointer || '(document)'} ${d.message}${d.hint ? ` (${d.hint})` : ''}`) : r.status === 'failed' ? [r.incident?.message ?? r.statusReason] : [],

@@ -4,6 +4,7 @@
  * symmetries, lattice, drive), the computed spectra and phase diagrams, and
  * provenance, citation and downloads. Pages and components only place it.
  */
+import { hintLabel, separateHint } from './verdict-hint.ts';
 import type { ModelRecord } from '../catalogue/records/model-record.ts';
 import type { Verdict } from '../catalogue/verify/verdict.ts';
 import { ANOMALOUS_LABEL, consistencyDetail, consistencyName, count, quantityName, valueText, SYMMETRY_NAME } from '../catalogue/vocabulary.ts';
@@ -32,7 +33,9 @@ export interface ClaimView {
   estimateOnly: boolean;
   outcome: Verdict['outcome'];
   message: string;
+  /** The hint when the message does not already say it, and how to introduce it. */
   hint: string | null;
+  hintLabel: string;
   pointer: string;
   certificate: CertificateView;
   /** Where on the page the evidence is drawn. */
@@ -68,7 +71,7 @@ export interface ModelPageData {
   timeline: TimelineFigure | null;
   period: string | null;
   bands: BandFigures;
-  gaps: { name: string; arc: string; minimal: string; at: string; tolerance: string; open: boolean }[];
+  gaps: { name: string; arc: string; minimal: string; at: string; lowerBound: string; tolerance: string; open: boolean }[];
   grid: string | null;
   propagatorAccuracy: string | null;
   consistency: { name: string; outcome: 'holds' | 'fails' | 'inconclusive'; detail: string }[];
@@ -150,7 +153,8 @@ export function modelPageData(record: ModelRecord): ModelPageData {
     estimateOnly: v.computed === null,
     outcome: v.outcome,
     message: v.message,
-    hint: v.hint,
+    hint: separateHint(v.message, v.hint),
+    hintLabel: hintLabel(v.outcome),
     pointer: v.pointer,
     certificate: certificateView(v.certificate),
     evidence: evidenceLinks(v, record),
@@ -209,6 +213,8 @@ export function modelPageData(record: ModelRecord): ModelPageData {
       arc: `${valueText(g.lower)} … ${valueText(g.upper)}`,
       minimal: valueText(g.minimalGap),
       at: g.at.length ? `(${g.at.map((x) => valueText(x, 3)).join(', ')})` : '—',
+      // Records of engines before certified bounds carry none: shown as a dash, never as a zero bound.
+      lowerBound: typeof g.lowerBound === 'number' && g.lowerBound > 0 ? valueText(g.lowerBound) : '—',
       tolerance: valueText(g.tolerance),
       open: g.open,
     })),
@@ -229,4 +235,5 @@ export function modelPageData(record: ModelRecord): ModelPageData {
     anomalous,
   };
 }
+
 

@@ -11,6 +11,8 @@ describe('quantity names', () => {
     expect(quantityName('gap-0.5/winding')).toMatchObject({ symbol: 'W_π/2', words: 'W at ε = π/(2T)' });
     expect(quantityName('gap-1/invariant').symbol).toBe('ν_π');
     expect(quantityName('gap-1/invariant', { symmetryClass: 'D' }).words).toBe('ν_π, the Z₂ index at ε = π/T');
+    // Every claim id a record can carry reads as words, never as the id itself.
+    expect(quantityName('symmetry-class')).toMatchObject({ words: 'symmetry class (Altland–Zirnbauer)', family: 'symmetry-class' });
     expect(quantityName('gap-0/edge-1-low').words).toBe('edge modes at ε = 0, low edge of the ribbon finite along a₂');
     expect(quantityName('band-0/chern', { cut: 1 })).toMatchObject({ symbol: 'C_1', words: 'C of band 1 above the cut at ε = π/T' });
     expect(quantityName('gap-1/end-modes').words).toBe('end modes at ε = π/T (per end)');

@@ -187,7 +187,7 @@ describe.skipIf(!hasBrowser)('catalogue site in a browser', () => {
     await page.goto(`${server.url}browse/attention/`);
     const items = page.locator('ol.attention > li');
     expect(await items.evaluateAll((lis) => lis.map((li) => (li as HTMLElement).dataset.status))).toEqual(['disputed', 'invalid']);
-    expect(await items.first().textContent()).toContain('but the file claims -1');
+    expect(await items.first().textContent()).toContain('but the file claims −1');
   });
 
   it('offers downloads identical to the records and the model file', async () => {

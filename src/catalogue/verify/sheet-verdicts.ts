@@ -30,7 +30,7 @@ const SAME = 1e-6;
  * basis: it is a claim taken in another orientation or time convention.
  */
 export const SIGN_HINT_ORIENTATION =
-  'sign differs: C and W are reported in the Cartesian orientation (x̂, ŷ) for either handedness of (a₁, a₂); a value taken in the orientation of the lattice vectors of a left-handed basis, or with time evolution e^{+iHt}, has the opposite sign';
+  'sign differs: C and W are reported in the Cartesian orientation (x̂, ŷ) for either handedness of (a₁, a₂); a value taken in the orientation of the lattice vectors of a left-handed basis, or with time evolution e^(+iHt) instead of e^(−iHt), has the opposite sign';
 /** Edge counts are named by the lattice vectors, so for them the handedness does enter (table in docs/conventions.md). */
 export const SIGN_HINT_EDGE = 'sign differs: check the orientation of (a₁, a₂) or the direction of k_∥ (edge-count signs follow the table in docs/conventions.md)';
 

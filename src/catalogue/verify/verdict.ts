@@ -14,6 +14,10 @@
 import type { Certificate } from './certificate.ts';
 import type { NormalizedClaim } from './claims.ts';
 import type { SettledInteger } from './evidence.ts';
+import { formatNumber } from './format.ts';
+
+/** An integer as in every message (typographic minus); anything else in the common number format. */
+const integerText = (x: number): string => (Number.isInteger(x) ? String(x).replace(/^-/, '−') : formatNumber(x));
 
 export type VerdictOutcome = 'confirmed' | 'contradicted' | 'unsettled';
 
@@ -95,7 +99,7 @@ export function integerVerdict(
   }
   const computed = evidence.value;
   if (computed === claim.value) {
-    return { ...base, outcome: 'confirmed', computed, estimate: computed, message: `${what} is ${computed}, as claimed.`, hint: null };
+    return { ...base, outcome: 'confirmed', computed, estimate: computed, message: `${what} is ${integerText(computed)}, as claimed.`, hint: null };
   }
   const match = alternatives.find((a) => a.value === claim.value);
   return {
@@ -103,7 +107,7 @@ export function integerVerdict(
     outcome: 'contradicted',
     computed,
     estimate: computed,
-    message: `${what} is ${computed}, but the file claims ${claim.value}.`,
+    message: `${what} is ${integerText(computed)}, but the file claims ${integerText(claim.value)}.`,
     hint: match ? match.hint : null,
   };
 }
