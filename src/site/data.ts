@@ -78,7 +78,7 @@ export function modelSourceText(record: Pick<ModelRecord, 'id'>): string | null 
 }
 
 /** A project document (docs/<name>.md). */
-export function documentMarkdown(name: 'conventions' | 'model-format'): string {
+export function documentMarkdown(name: string): string {
   return readFileSync(resolve('docs', `${name}.md`), 'utf8');
 }
 

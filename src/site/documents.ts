@@ -130,7 +130,7 @@ export function siteLink(href: string, base: string): string | null {
   const [path, hash] = href.split('#');
   const anchor = hash ? `#${hash}` : '';
   const name = path.split('/').pop() ?? '';
-  if (/^(conventions|model-format|benchmarks)\.md$/.test(name)) return `${base}/docs/${name.replace(/\.md$/, '')}/${anchor}`;
+  if (/^(conventions|model-format|worked-example|writing-drives|sharding|benchmarks)\.md$/.test(name)) return `${base}/docs/${name.replace(/\.md$/, '')}/${anchor}`;
   const schema = /(?:^|\/)schemas\/(.+\.json)$/.exec(path);
   if (schema) return `${base}/schemas/${schema[1]}`;
   const model = /(?:^|\/)models\/([a-z0-9-]+)\.json$/.exec(path);

@@ -81,9 +81,18 @@ export function publishedModels(): ModelRecord[] {
   return publishedRecords();
 }
 
-const DOCUMENT_TITLES = { conventions: 'Physics conventions', 'model-format': 'Model file format' } as const;
+/** The documents under docs/ published as pages, with their titles. */
+export const DOCUMENT_TITLES = {
+  conventions: 'Physics conventions',
+  'model-format': 'Model file format',
+  'worked-example': 'Worked example: from the file to every number',
+  'writing-drives': 'Writing drives',
+  sharding: 'Sweeps and checks across machines',
+  benchmarks: 'Benchmarks',
+} as const;
+export type DocumentName = keyof typeof DOCUMENT_TITLES;
 
-export function documentPage(name: keyof typeof DOCUMENT_TITLES, base: string): { title: string; heading: string; body: string; outline: { id: string; text: string }[] } {
+export function documentPage(name: DocumentName, base: string): { title: string; heading: string; body: string; outline: { id: string; text: string }[] } {
   const html = renderDocument(documentMarkdown(name), base);
   // The title (the document's h1) comes before its table of contents.
   const end = html.indexOf('</h1>');
