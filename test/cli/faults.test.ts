@@ -75,7 +75,8 @@ describe('a run killed at random points', () => {
 });
 
 describe('stopping strobe site', () => {
-  it('stops its build child and removes the half-built folder', async () => {
+  /** Starts `strobe site` on one invalid file and waits for its astro build child. */
+  async function siteWithBuild(): Promise<{ root: string; site: ReturnType<typeof spawn>; build: number; distBefore: string | null }> {
     const root = mkdtempSync(join(tmpdir(), 'strobe-stop-'));
     const file = join(root, 'unknown-orbital.json');
     copyFileSync('test/fixtures/invalid/unknown-orbital.json', file);
@@ -104,19 +105,37 @@ describe('stopping strobe site', () => {
       build = childOf(site.pid!).find(isBuild);
     }
     expect(build, 'the build child never started').toBeDefined();
+    return { root, site, build: build!, distBefore };
+  }
+
+  /** Whether a process still runs (a zombie waiting for a reaper counts as ended). */
+  const running = (pid: number) => {
+    try {
+      return !/^State:\s+Z/m.test(readFileSync(`/proc/${pid}/status`, 'utf8'));
+    } catch {
+      return false;
+    }
+  };
+
+  it('stops its build child and removes the half-built folder', async () => {
+    const { root, site, build, distBefore } = await siteWithBuild();
     const exited = new Promise<number | null>((r) => site.on('exit', (code) => r(code)));
     site.kill('SIGTERM');
     expect(await exited).toBe(143);
-    const alive = () => {
-      try {
-        process.kill(build!, 0);
-        return true;
-      } catch {
-        return false;
-      }
-    };
-    for (let i = 0; i < 100 && alive(); i++) await new Promise((r) => setTimeout(r, 50));
-    expect(alive()).toBe(false);
+    for (let i = 0; i < 100 && running(build); i++) await new Promise((r) => setTimeout(r, 50));
+    expect(running(build)).toBe(false);
+    expect(existsSync(`.dist-building-${site.pid}`)).toBe(false);
+    expect(existsSync('dist') ? readdirSync('dist').join() : null).toBe(distBefore);
+    rmSync(root, { recursive: true, force: true });
+  }, 60_000);
+
+  it('ends the build child when strobe site is killed outright (SIGKILL), and removes its folder', async () => {
+    const { root, site, build, distBefore } = await siteWithBuild();
+    const exited = new Promise<NodeJS.Signals | null>((r) => site.on('exit', (_code, signal) => r(signal)));
+    site.kill('SIGKILL');
+    expect(await exited).toBe('SIGKILL');
+    for (let i = 0; i < 100 && running(build); i++) await new Promise((r) => setTimeout(r, 50));
+    expect(running(build)).toBe(false);
     expect(existsSync(`.dist-building-${site.pid}`)).toBe(false);
     expect(existsSync('dist') ? readdirSync('dist').join() : null).toBe(distBefore);
     rmSync(root, { recursive: true, force: true });

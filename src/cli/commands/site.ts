@@ -10,11 +10,13 @@
  * reported and reflected in the exit status.
  *
  * The build writes into a temporary folder beside dist/ and replaces dist/ only
- * when it succeeds; stopping `strobe site` (Ctrl-C, SIGTERM) stops the build too.
+ * when it succeeds; stopping `strobe site` (Ctrl-C, SIGTERM) stops the build too,
+ * and so does killing it outright (SIGKILL): the build child watches its parent.
  */
 import { spawn } from 'node:child_process';
 import { existsSync, readdirSync, renameSync, rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, asStreams, type Command, type CommandIO } from '../command.ts';
 import { parseCheckOptions, runVerifiedCheck, UsageError } from './verify-summary.ts';
 import { portProblem, serveStatic } from '../static-server.ts';
@@ -85,7 +87,13 @@ export function parseSiteOptions(args: string[]): SiteOptions | string {
 function runAstroBuild(cwd: string, outDir: string, env: NodeJS.ProcessEnv, io: CommandIO): Promise<number> {
   const astro = join(cwd, 'node_modules', 'astro', 'astro.js');
   return new Promise((resolvePromise) => {
-    const child = spawn(process.execPath, [astro, 'build', '--silent', '--outDir', outDir], { cwd, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+    // The watchdog ends the build if this process is killed outright (build-watchdog.mjs).
+    const watchdog = pathToFileURL(fileURLToPath(new URL('../build-watchdog.mjs', import.meta.url))).href;
+    const child = spawn(process.execPath, ['--import', watchdog, astro, 'build', '--silent', '--outDir', outDir], {
+      cwd,
+      env: { ...process.env, ...env, STROBE_BUILD_PARENT: String(process.pid), STROBE_BUILD_FOLDER: outDir },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
     const signals: NodeJS.Signals[] = ['SIGINT', 'SIGTERM', 'SIGHUP'];
     const stop = (signal: NodeJS.Signals) => {
       child.once('close', () => {
