@@ -128,6 +128,9 @@ function budgetRecord(model: LoadedModel, options: LimitOptions): { budget: Budg
   return refusal ? { budget, refusal } : { budget };
 }
 
+/** Smallest heap a worker gets, whatever --memory-limit says (MB). */
+const WORKER_HEAP_FLOOR_MB = 512;
+
 export async function verifyCatalogue(paths: string[], options: VerifyCatalogueOptions = {}): Promise<CatalogueReport> {
   const engine = options.engine ?? engineFingerprint();
   const identity = { version: engine.version, numericsHash: engine.numericsHash };
@@ -184,6 +187,9 @@ export async function verifyCatalogue(paths: string[], options: VerifyCatalogueO
     ...(options.workers !== undefined ? { size: options.workers } : {}),
     // workers: 0 asks for this thread, where nothing can stop a model; an explicit time limit still gets its worker.
     ...(options.workers === 0 && options.timeLimitSeconds === undefined ? {} : { timeLimitMs: (i: number) => 1000 * pending[i].budget.timeLimitSeconds }),
+    // The memory limit also caps each worker's JavaScript heap, so a model that outgrows it ends its worker only
+    // (never below WORKER_HEAP_FLOOR_MB: the loader and the engine's modules need room of their own).
+    ...(pending.length > 0 ? { heapLimitMb: Math.max(WORKER_HEAP_FLOOR_MB, Math.ceil(Math.max(...pending.map((p) => p.budget.memoryLimitBytes)) / 2 ** 20)) } : {}),
     onProgress: (i, step) => {
       if (step === 'started') started.set(i, performance.now());
       const p = pending[i];

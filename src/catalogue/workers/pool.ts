@@ -34,6 +34,12 @@ export interface PoolOptions {
   size?: number;
   /** Time limit in milliseconds, for every task or per task index; with a limit, size 0 runs one worker thread instead of the calling thread. */
   timeLimitMs?: number | ((index: number) => number);
+  /**
+   * Old-generation heap limit of each worker thread in MB (resourceLimits): a task whose
+   * JavaScript heap grows past it ends its worker only, reported as crashed, instead of
+   * taking the whole process down. Typed arrays live outside this heap.
+   */
+  heapLimitMb?: number;
   /** Called when a task starts and at each progress note it sends. */
   onProgress?: (index: number, step: string) => void;
   /** Called when a task ends, in completion order. */
@@ -98,7 +104,10 @@ export async function runTasks<T, R>(tasks: T[], options: PoolOptions): Promise<
     };
 
     const spawn = () => {
-      const worker = new Worker(workerHostPath(), { workerData: { entry: options.entry } });
+      const worker = new Worker(workerHostPath(), {
+        workerData: { entry: options.entry },
+        ...(options.heapLimitMb !== undefined ? { resourceLimits: { maxOldGenerationSizeMb: options.heapLimitMb } } : {}),
+      });
       let current = -1;
       let started = 0;
       let timer: NodeJS.Timeout | undefined;
@@ -169,7 +178,11 @@ export async function runTasks<T, R>(tasks: T[], options: PoolOptions): Promise<
         else finish(current, { state: 'threw', message: message.message ?? 'unknown error', elapsedMs });
         take();
       });
-      worker.on('error', (error) => died(error instanceof Error ? error.message : String(error)));
+      worker.on('error', (error) => {
+        const code = (error as { code?: string }).code;
+        if (code === 'ERR_WORKER_OUT_OF_MEMORY') died(`out of memory: its JavaScript heap reached the limit of ${options.heapLimitMb ?? 'the default'} MB (--memory-limit)`);
+        else died(error instanceof Error ? error.message : String(error));
+      });
       worker.on('exit', (code) => died(`exited with code ${code}`));
     };
 

@@ -70,7 +70,8 @@ export const describeCheckOptions = `Options of strobe check (verification):
                    estimate; one that runs over it is stopped and reported as failed
                    (models run in worker threads, so the limit holds for every --workers)
   --memory-limit MB  memory budget per model (default ${DEFAULT_MEMORY_LIMIT_BYTES / 1e6}); a model whose
-                   estimated memory exceeds it is refused
+                   estimated memory exceeds it is refused; it also caps the
+                   JavaScript heap of each worker thread (at least 512 MB)
   --strict         also fail when a model is unsettled
   --json           print the catalogue summary as JSON instead of the table
   --junit FILE     also write a JUnit XML report (one test case per claim)

@@ -45,4 +45,13 @@ describe('worker pool', () => {
     expect(outcomes[3]).toMatchObject({ state: 'done', result: 36 });
     expect(progress).toContain('1:task square');
   });
+
+  it('caps each worker heap: a task that outgrows it is reported as crashed, out of memory, and the rest finish', async () => {
+    const tasks: SampleTask[] = [{ kind: 'square', x: 3 }, { kind: 'oom' }, { kind: 'square', x: 7 }];
+    const outcomes = await runTasks<SampleTask, number>(tasks, { entry, size: 1, heapLimitMb: 48, timeLimitMs: 60_000 });
+    expect(outcomes[0]).toMatchObject({ state: 'done', result: 9 });
+    expect(outcomes[1]).toMatchObject({ state: 'crashed' });
+    expect((outcomes[1] as { message: string }).message).toMatch(/out of memory: its JavaScript heap reached the limit of 48 MB/);
+    expect(outcomes[2]).toMatchObject({ state: 'done', result: 49 });
+  }, 60_000);
 });

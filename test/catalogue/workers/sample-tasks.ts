@@ -19,6 +19,11 @@ export async function handleTask(task: SampleTask, report: (step: string) => voi
       return -1;
     case 'throw':
       throw new Error('model blew up on purpose');
+    case 'oom': {
+      // Ordinary objects until the heap is exhausted (typed arrays would live outside it).
+      const hoard: object[] = [];
+      for (;;) hoard.push({ a: [1, 2, 3, 4, 5, 6, 7, 8], b: `${hoard.length}` });
+    }
     default:
       throw new Error(`unknown sample task ${task.kind}`);
   }
