@@ -4,8 +4,8 @@
  * of its legend and caption. Components only place what is returned here.
  */
 import type { ModelRecord } from '../catalogue/records/model-record.ts';
-import { edgeName, gapSubscript, quasienergyText } from '../catalogue/vocabulary.ts';
-import { colouringSentence, edgeClasses, localisationField, ordinal } from './edge-localisation.ts';
+import { edgeName, gapSubscript, ordinal, quasienergyText } from '../catalogue/vocabulary.ts';
+import { colouringSentence, edgeClasses, localisationField } from './edge-localisation.ts';
 import { gapOrder, invariantProfile } from './invariants.ts';
 import { latticeGeometry } from './lattice.ts';
 import type { ModelSource } from './model-source.ts';

@@ -117,15 +117,20 @@ describe('stopping strobe site', () => {
     }
   };
 
+  /** The build child ends within 5 s, its half-built folder is gone and dist/ is as it was. */
+  async function expectBuildGone(sitePid: number, build: number, distBefore: string | null): Promise<void> {
+    for (let i = 0; i < 100 && running(build); i++) await new Promise((r) => setTimeout(r, 50));
+    expect(running(build)).toBe(false);
+    expect(existsSync(`.dist-building-${sitePid}`)).toBe(false);
+    expect(existsSync('dist') ? readdirSync('dist').join() : null).toBe(distBefore);
+  }
+
   it('stops its build child and removes the half-built folder', async () => {
     const { root, site, build, distBefore } = await siteWithBuild();
     const exited = new Promise<number | null>((r) => site.on('exit', (code) => r(code)));
     site.kill('SIGTERM');
     expect(await exited).toBe(143);
-    for (let i = 0; i < 100 && running(build); i++) await new Promise((r) => setTimeout(r, 50));
-    expect(running(build)).toBe(false);
-    expect(existsSync(`.dist-building-${site.pid}`)).toBe(false);
-    expect(existsSync('dist') ? readdirSync('dist').join() : null).toBe(distBefore);
+    await expectBuildGone(site.pid!, build, distBefore);
     rmSync(root, { recursive: true, force: true });
   }, 60_000);
 
@@ -134,10 +139,7 @@ describe('stopping strobe site', () => {
     const exited = new Promise<NodeJS.Signals | null>((r) => site.on('exit', (_code, signal) => r(signal)));
     site.kill('SIGKILL');
     expect(await exited).toBe('SIGKILL');
-    for (let i = 0; i < 100 && running(build); i++) await new Promise((r) => setTimeout(r, 50));
-    expect(running(build)).toBe(false);
-    expect(existsSync(`.dist-building-${site.pid}`)).toBe(false);
-    expect(existsSync('dist') ? readdirSync('dist').join() : null).toBe(distBefore);
+    await expectBuildGone(site.pid!, build, distBefore);
     rmSync(root, { recursive: true, force: true });
   }, 60_000);
 });

@@ -6,7 +6,8 @@
 // per edge region of W/4 cells).
 import { describe, expect, it } from 'vitest';
 import type { SpectrumRecord } from '../../src/catalogue/records/model-record.ts';
-import { colouringSentence, edgeClasses, localisationField, ordinal } from '../../src/site/edge-localisation.ts';
+import { colouringSentence, edgeClasses, localisationField } from '../../src/site/edge-localisation.ts';
+import { ordinal } from '../../src/catalogue/vocabulary.ts';
 import { spectrumPlot } from '../../src/site/plots/spectrum-plot.ts';
 
 const width = 20;

@@ -19,7 +19,7 @@ import { formatNumber, formatQuasienergy, formatRawValue } from './format.ts';
 import type { VerdictPolicy } from './policy.ts';
 import { gapTolerance } from './policy.ts';
 import type { Alternative, Verdict } from './verdict.ts';
-import { integerVerdict } from './verdict.ts';
+import { integerVerdict, settlingRemedy } from './verdict.ts';
 import { residualEntries, symmetryClassVerdict, symmetryFor, symmetryVerdict } from './symmetry-verdicts.ts';
 
 const SAME = 1e-6;
@@ -285,7 +285,7 @@ export function judgeSheet(p: CheckedSheetPortrait, claims: NormalizedClaim[], p
           verdicts.push({
             claim: claim.id, kind: claim.kind, pointer: claim.pointer, gap: claim.cut, outcome: 'unsettled', claimed: claim.value,
             computed: null, estimate: null, message: `The Chern number of band ${claim.band + 1} above the cut is ill-defined: ${why}.`,
-            hint: !ordered && found ? why.slice(why.lastIndexOf('to settle, ') + 'to settle, '.length) : 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch (see the gaps in the certificate)', certificate,
+            hint: (!ordered && found ? settlingRemedy(why) : null) ?? 'check claims.bands.cut, and whether the parameter point sits at a phase transition where bands touch (see the gaps in the certificate)', certificate,
           });
           break;
         }

@@ -112,11 +112,17 @@ export function integerVerdict(
   };
 }
 
+/** The remedy a reason names after "to settle, " (up to the next clause), or null. */
+export function settlingRemedy(reason: string): string | null {
+  const m = /to settle, ([^;]+)/.exec(reason);
+  return m ? m[1].replace(/\.$/, '') : null;
+}
+
 /** The first remedy a reason names ("to settle, …"), else a recognised cause. */
 function unsettledHint(reasons: string[]): string | null {
   for (const r of reasons) {
-    const m = /to settle, ([^;]+)/.exec(r);
-    if (m) return m[1].replace(/\.$/, '');
+    const remedy = settlingRemedy(r);
+    if (remedy) return remedy;
   }
   const text = reasons.join(' ');
   if (/no open gap contains/.test(text)) return 'name a gap by a quasienergy inside it (units π/T): pick one of the open gaps listed';

@@ -23,6 +23,7 @@ import type { ComplexMatrix } from './complex-matrix.ts';
 import { zeros } from './complex-matrix.ts';
 import { BandedLu } from './banded-lu.ts';
 import { BandedMatrix } from './banded-matrix.ts';
+import { projectOut } from './complex-rows.ts';
 
 /** Shifts closer than this are re-orthogonalised together. */
 export const CLUSTER_SEPARATION = 1e-3;
@@ -68,7 +69,7 @@ export function bandedInverseIteration(source: BandSource, shiftsRe: Float64Arra
     let extra = 1;
     for (let solve = 0; solve < MAX_SOLVES; solve++) {
       lu.solveInPlace(xr, xi);
-      for (let pass = 0; pass < 2; pass++) for (const g of group) project(tr, ti, g * n, xr, xi, n);
+      for (let pass = 0; pass < 2; pass++) for (const g of group) projectOut(tr, ti, g * n, xr, xi, 0, n);
       const growth = normalise(xr, xi);
       if (growth >= growthTarget && extra-- === 0) break;
     }
@@ -111,21 +112,6 @@ function normalise(xr: Float64Array, xi: Float64Array): number {
   const inv = norm > 0 ? 1 / norm : 0;
   for (let r = 0; r < xr.length; r++) { xr[r] *= inv; xi[r] *= inv; }
   return norm;
-}
-
-/** x ← x − q (q†x) for the unit vector q stored at offset o of (qr, qi). */
-function project(qr: Float64Array, qi: Float64Array, o: number, xr: Float64Array, xi: Float64Array, n: number): void {
-  let sr = 0, si = 0;
-  for (let r = 0; r < n; r++) {
-    const ar = qr[o + r], ai = qi[o + r], br = xr[r], bi = xi[r];
-    sr += ar * br + ai * bi;
-    si += ar * bi - ai * br;
-  }
-  for (let r = 0; r < n; r++) {
-    const ar = qr[o + r], ai = qi[o + r];
-    xr[r] -= ar * sr - ai * si;
-    xi[r] -= ar * si + ai * sr;
-  }
 }
 
 /** Indices 0 … n−1 of ascending values, grouped where neighbours lie closer than CLUSTER_SEPARATION (chained). */

@@ -36,6 +36,7 @@
 import type { ComplexMatrix } from './complex-matrix.ts';
 import { zeros } from './complex-matrix.ts';
 import { BandedLu } from './banded-lu.ts';
+import { innerProductInto, projectOut, rowNorm } from './complex-rows.ts';
 import type { BandedMatrix } from './banded-matrix.ts';
 import { UnitaryEigen } from './unitary-eigen.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
@@ -198,17 +199,12 @@ function eigenpairsNear(u: BandedMatrix, setting: Setting, options: ArcOptions):
       ui.set(yi, j * n);
     }
     const m = zeros(p, p);
+    const entry = new Float64Array(2);
     for (let a = 0; a < p; a++) {
       for (let c = 0; c < p; c++) {
-        let sr = 0, si = 0;
-        const oa = a * n, oc = c * n;
-        for (let r = 0; r < n; r++) {
-          const ar = qr[oa + r], ai = qi[oa + r], br = ur[oc + r], bi = ui[oc + r];
-          sr += ar * br + ai * bi;
-          si += ar * bi - ai * br;
-        }
-        m.re[a * p + c] = sr;
-        m.im[a * p + c] = si;
+        innerProductInto(entry, qr, qi, a * n, ur, ui, c * n, n);
+        m.re[a * p + c] = entry[0];
+        m.im[a * p + c] = entry[1];
       }
     }
     const eig = setting.ritz(m);
@@ -317,24 +313,11 @@ function polish(u: BandedMatrix, approximate: number[], setting: Setting): { pha
 function orthonormalise(qr: Float64Array, qi: Float64Array, n: number, p: number, refill: (j: number) => void): void {
   for (let j = 0; j < p; j++) {
     for (let attempt = 0; attempt < 3; attempt++) {
-      const before = norm(qr, qi, j * n, n);
+      const before = rowNorm(qr, qi, j * n, n);
       for (let pass = 0; pass < 2; pass++) {
-        for (let i = 0; i < j; i++) {
-          let sr = 0, si = 0;
-          const oi = i * n, oj = j * n;
-          for (let r = 0; r < n; r++) {
-            const ar = qr[oi + r], ai = qi[oi + r], br = qr[oj + r], bi = qi[oj + r];
-            sr += ar * br + ai * bi;
-            si += ar * bi - ai * br;
-          }
-          for (let r = 0; r < n; r++) {
-            const ar = qr[oi + r], ai = qi[oi + r];
-            qr[oj + r] -= ar * sr - ai * si;
-            qi[oj + r] -= ar * si + ai * sr;
-          }
-        }
+        for (let i = 0; i < j; i++) projectOut(qr, qi, i * n, qr, qi, j * n, n);
       }
-      const after = norm(qr, qi, j * n, n);
+      const after = rowNorm(qr, qi, j * n, n);
       if (after > 1e-8 * before && after > 0) {
         const inv = 1 / after;
         for (let r = 0; r < n; r++) {
@@ -347,10 +330,3 @@ function orthonormalise(qr: Float64Array, qi: Float64Array, n: number, p: number
     }
   }
 }
-
-function norm(qr: Float64Array, qi: Float64Array, o: number, n: number): number {
-  let s = 0;
-  for (let r = 0; r < n; r++) s += qr[o + r] * qr[o + r] + qi[o + r] * qi[o + r];
-  return Math.sqrt(s);
-}
-

@@ -25,29 +25,18 @@ import { verdictPropagatorTolerance } from '../evolution/propagator.ts';
 import type { QuasienergyGrid } from '../quasienergy-bands.ts';
 import { aboveCut, FloquetSampler, gridNeighbour, sampleQuasienergyGrid } from '../quasienergy-bands.ts';
 import type { EdgeCountOptions } from './edge-modes.ts';
-import { ribbonEdgeCounts } from './ribbon-edge-counts.ts';
+import { ribbonEdgeCounts, type RibbonCountOptions } from './ribbon-edge-counts.ts';
 import type { WindingOptions } from './winding/gap-winding.ts';
 import { gapWindingNumbers } from './winding/gap-winding.ts';
 import type { DeclaredOperators } from '../symmetry/altland-zirnbauer.ts';
 import { declaredSymmetryClass } from '../symmetry/altland-zirnbauer.ts';
 import { declaredSymmetryReports } from '../symmetry/declared-symmetries.ts';
 
-export interface SheetRibbonOptions {
+/** Ribbon settings of a sheet analysis: the directions to cut, and for each cut the options of ribbon-edge-counts.ts. */
+export type SheetRibbonOptions = {
   /** Finite directions to cut (default both, [0, 1]). */
   directions?: number[];
-  /** Starting width in cells (default 24); widened to 6 decay lengths within maxWidth (ribbon-edge-counts.ts). */
-  width?: number;
-  /** Width budget in cells (default 16000 states' worth). */
-  maxWidth?: number;
-  /** Gap labels (units π/T) whose counts may widen the ribbon (default: every gap; ribbon-edge-counts.ts). */
-  widenFor?: number[];
-  /** Cells per edge region (default ⌊width/4⌋). */
-  edgeCells?: number;
-  /** Momenta along the edge (default 200 on the dense route). */
-  momenta?: number;
-  /** Ribbons with at most this many states take the dense route (default 240). */
-  denseStates?: number;
-}
+} & Pick<RibbonCountOptions, 'width' | 'maxWidth' | 'widenFor' | 'edgeCells' | 'momenta' | 'denseStates'>;
 
 export interface SheetOptions {
   /** Band grid n1 × n2 (default [24, 24]); the Chern refinement starts at max(n1, n2) unless chern.initialGrid says otherwise. */
@@ -196,17 +185,13 @@ export function analyseSheet(drive: LatticeDrive, options: SheetOptions = {}): S
   t = clock();
   const ribbons: RibbonReport[] = [];
   if (run.edges && ordered.length > 0) {
-    for (const direction of options.ribbon?.directions ?? [0, 1]) {
+    const { directions = [0, 1], ...perCut } = options.ribbon ?? {};
+    for (const direction of directions) {
       const gaps = ordered.map((gap) => ({ arc: gap, bulkDecayLength: bulkDecayLength(data, gap, direction) }));
       ribbons.push(
         ribbonEdgeCounts(drive, gaps, {
+          ...perCut,
           finiteDirection: direction,
-          ...(options.ribbon?.width !== undefined ? { width: options.ribbon.width } : {}),
-          ...(options.ribbon?.maxWidth !== undefined ? { maxWidth: options.ribbon.maxWidth } : {}),
-          ...(options.ribbon?.widenFor !== undefined ? { widenFor: options.ribbon.widenFor } : {}),
-          ...(options.ribbon?.edgeCells !== undefined ? { edgeCells: options.ribbon.edgeCells } : {}),
-          ...(options.ribbon?.momenta !== undefined ? { momenta: options.ribbon.momenta } : {}),
-          ...(options.ribbon?.denseStates !== undefined ? { denseStates: options.ribbon.denseStates } : {}),
           propagator: ribbonPropagator,
           ...(options.edges !== undefined ? { edges: options.edges } : {}),
         }),
