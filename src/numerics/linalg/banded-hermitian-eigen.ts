@@ -18,6 +18,7 @@ import { bandHermitianEigenvalues } from './band-tridiagonal.ts';
 import { bandedInverseIteration, closeGroups } from './banded-inverse-iteration.ts';
 import { multiplyBandedDense, rediagonaliseGroup } from './banded-unitary-eigen.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
+import { columnsAsRows, gramDefectBound, innerProductInto } from './complex-rows.ts';
 import { BANDED_MAX_FRACTION, RESIDUAL_TARGET } from './unitary-eigen.ts';
 
 const GRAM_WINDOW = 0.05;
@@ -95,27 +96,12 @@ function residualNorm(hv: ComplexMatrix, v: ComplexMatrix, values: Float64Array)
 
 /** Upper bound on ‖V†V − 1‖_F for ascending eigenvalues (see the file comment). */
 function orthogonalityBound(v: ComplexMatrix, hv: ComplexMatrix, values: Float64Array, scale: number): number {
-  const n = v.rows, m = v.cols;
-  const res = columnResiduals(hv, v, values);
-  let total = 0;
-  for (let i = 0; i < m; i++) {
-    let q = 0;
-    for (let r = 0; r < n; r++) q += v.re[r * m + i] ** 2 + v.im[r * m + i] ** 2;
-    total += (q - 1) ** 2;
-    for (let j = i + 1; j < m; j++) {
-      const d = values[j] - values[i];
-      let g2: number;
-      if (d < GRAM_WINDOW * scale) {
-        let sr = 0, si = 0;
-        for (let r = 0; r < n; r++) {
-          const ar = v.re[r * m + i], ai = v.im[r * m + i], br = v.re[r * m + j], bi = v.im[r * m + j];
-          sr += ar * br + ai * bi;
-          si += ar * bi - ai * br;
-        }
-        g2 = sr * sr + si * si;
-      } else g2 = ((res[i] + res[j]) / d) ** 2;
-      total += 2 * g2;
-    }
-  }
-  return Math.sqrt(total);
+  const n = v.rows;
+  const rows = columnsAsRows(v);
+  const self = new Float64Array(2);
+  const norm2 = Float64Array.from({ length: v.cols }, (_, j) => {
+    innerProductInto(self, rows.re, rows.im, j * n, rows.re, rows.im, j * n, n);
+    return self[0];
+  });
+  return gramDefectBound(rows.re, rows.im, n, norm2, columnResiduals(hv, v, values), (i, j) => values[j] - values[i], GRAM_WINDOW * scale);
 }

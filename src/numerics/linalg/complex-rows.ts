@@ -23,15 +23,70 @@ export function rowNorm(re: Float64Array, im: Float64Array, o: number, n: number
   return Math.sqrt(s);
 }
 
-const coefficient = new Float64Array(2);
-
 /** x ← x − q (q†x) for the unit row q at offset qo of (qr, qi) and the row x at offset xo of (xr, xi). */
 export function projectOut(qr: Float64Array, qi: Float64Array, qo: number, xr: Float64Array, xi: Float64Array, xo: number, n: number): void {
-  innerProductInto(coefficient, qr, qi, qo, xr, xi, xo, n);
-  const sr = coefficient[0], si = coefficient[1];
+  // q†x summed here rather than through innerProductInto: this runs once per vector pair of every
+  // inverse iteration (the hottest loop of the ribbon spectra), where the extra call measurably costs.
+  let sr = 0, si = 0;
+  for (let r = 0; r < n; r++) {
+    const ar = qr[qo + r], ai = qi[qo + r], br = xr[xo + r], bi = xi[xo + r];
+    sr += ar * br + ai * bi;
+    si += ar * bi - ai * br;
+  }
   for (let r = 0; r < n; r++) {
     const ar = qr[qo + r], ai = qi[qo + r];
     xr[xo + r] -= ar * sr - ai * si;
     xi[xo + r] -= ar * si + ai * sr;
   }
+}
+
+/** The columns of v (n × m, row-major) as m contiguous rows of length n. */
+export function columnsAsRows(v: { rows: number; cols: number; re: Float64Array; im: Float64Array }): { re: Float64Array; im: Float64Array } {
+  const n = v.rows, m = v.cols;
+  const re = new Float64Array(m * n), im = new Float64Array(m * n);
+  for (let r = 0; r < n; r++) {
+    for (let j = 0; j < m; j++) {
+      re[j * n + r] = v.re[r * m + j];
+      im[j * n + r] = v.im[r * m + j];
+    }
+  }
+  return { re, im };
+}
+
+/**
+ * Upper bound on ‖V†V − 1‖_F for approximate eigenvectors of a normal matrix,
+ * stored as rows: the explicit Gram entry for pairs whose eigenvalues lie closer
+ * than `window`, and (r_i + r_j)/d_ij for every other pair (d_ij the distance of
+ * the eigenvalues, r the residuals); `norm2` holds the squared row norms.
+ * The callers certify eigenvectors of the banded routes with it
+ * (unitary-eigen.ts, banded-hermitian-eigen.ts).
+ */
+export function gramDefectBound(
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  norm2: Float64Array,
+  residuals: Float64Array,
+  distance: (i: number, j: number) => number,
+  window: number,
+): number {
+  const m = norm2.length;
+  const g = new Float64Array(2);
+  let total = 0;
+  for (let i = 0; i < m; i++) {
+    total += (norm2[i] - 1) ** 2;
+    for (let j = i + 1; j < m; j++) {
+      const d = distance(i, j);
+      let g2: number;
+      if (d < window) {
+        innerProductInto(g, re, im, i * n, re, im, j * n, n);
+        g2 = g[0] * g[0] + g[1] * g[1];
+      } else {
+        const bound = (residuals[i] + residuals[j]) / d;
+        g2 = bound * bound;
+      }
+      total += 2 * g2;
+    }
+  }
+  return Math.sqrt(total);
 }

@@ -30,6 +30,7 @@ import { identity, multiply, projectColumns, rotateColumnsInPlace, scale, zeros 
 import { assertUnitary, DEFAULT_UNITARITY_TOLERANCE } from './checks.ts';
 import { HermitianEigen } from './hermitian-eigen.ts';
 import { LuDecomposition } from './lu.ts';
+import { columnsAsRows, gramDefectBound } from './complex-rows.ts';
 import { BandedLu, bandwidth } from './banded-lu.ts';
 import { CLUSTER_SEPARATION, unitaryInverseIteration } from './banded-inverse-iteration.ts';
 
@@ -209,40 +210,11 @@ export function orthogonalityBound(v: ComplexMatrix, uv: ComplexMatrix, phases: 
     res[j] = Math.sqrt(s / q);
   }
   // Columns as contiguous rows for the explicit inner products.
-  const tr = new Float64Array(m * n), ti = new Float64Array(m * n);
-  for (let r = 0; r < n; r++) {
-    for (let j = 0; j < m; j++) {
-      tr[j * n + r] = v.re[r * m + j];
-      ti[j * n + r] = v.im[r * m + j];
-    }
-  }
+  const rows = columnsAsRows(v);
   // |e^{iφ_a} − e^{iφ_c}| from the unit vectors (no sine per pair).
   const cos = Float64Array.from(phases, Math.cos), sin = Float64Array.from(phases, Math.sin);
   const chord = (a: number, c: number) => Math.sqrt((cos[a] - cos[c]) ** 2 + (sin[a] - sin[c]) ** 2);
-  let total = 0;
-  for (let i = 0; i < m; i++) {
-    total += (norm2[i] - 1) ** 2;
-    const oi = i * n;
-    for (let j = i + 1; j < m; j++) {
-      const d = chord(i, j);
-      let g2: number;
-      if (d < GRAM_WINDOW) {
-        let sr = 0, si = 0;
-        const oj = j * n;
-        for (let r = 0; r < n; r++) {
-          const ar = tr[oi + r], ai = ti[oi + r], br = tr[oj + r], bi = ti[oj + r];
-          sr += ar * br + ai * bi;
-          si += ar * bi - ai * br;
-        }
-        g2 = sr * sr + si * si;
-      } else {
-        const bound = (res[i] + res[j]) / d;
-        g2 = bound * bound;
-      }
-      total += 2 * g2;
-    }
-  }
-  return Math.sqrt(total);
+  return gramDefectBound(rows.re, rows.im, n, norm2, res, chord, GRAM_WINDOW);
 }
 
 /** Folds an angle into (−π, π]. */
